@@ -1,0 +1,33 @@
+/**
+ * The navigation, by role. Add an entry when a page lands; the page itself still checks the
+ * role on the server (this list only decides what is shown).
+ */
+import type { Role } from "@/db/enums";
+
+export type NavItem = { href: string; label: string; roles: readonly Role[] };
+export type NavGroup = { label: string; items: NavItem[] };
+
+const ALL: readonly Role[] = ["porter", "machinist", "lead", "auditor", "admin"];
+
+export const NAV: NavGroup[] = [
+  {
+    label: "Shop",
+    items: [{ href: "/", label: "Overview", roles: ALL }],
+  },
+  {
+    label: "Library",
+    items: [{ href: "/head-types", label: "Head types", roles: ALL }],
+  },
+  {
+    label: "Records",
+    items: [{ href: "/audit", label: "Audit log", roles: ["auditor", "admin", "lead"] }],
+  },
+  {
+    label: "Administration",
+    items: [{ href: "/admin/users", label: "Users and invitations", roles: ["admin"] }],
+  },
+];
+
+export function navFor(role: Role): NavGroup[] {
+  return NAV.map((g) => ({ ...g, items: g.items.filter((i) => i.roles.includes(role)) })).filter((g) => g.items.length > 0);
+}
