@@ -202,6 +202,12 @@ export function computeFlowTest(input: FlowTestInput): FlowTestResult {
   };
 
   const warnings = [...air.warnings];
+  // A coefficient above 1 means more flow than an ideal opening of that area passes: the units
+  // or the valve size are wrong far more often than the bench is.
+  const implausible = points.filter((p) => p.cdCurtain > 1 || p.cdValve > 1).map((p) => p.liftMm.toFixed(2));
+  if (implausible.length) {
+    warnings.push(`Flow coefficient above 1 at ${implausible.join(", ")} mm lift: check the lift and flow units and the valve diameter.`);
+  }
   const mixed = points.some((p) => Math.abs(p.depressionInH2O - pressure.fromSi(testDepressionPa, "inH2O")) > 1e-9);
   if (mixed) warnings.push("Some points were measured at their own depression; all were moved to 28 inH₂O by the square-root law.");
 

@@ -8,6 +8,8 @@
  *
  * All or nothing: any malformed row makes the whole import fail, with one error per problem, so
  * half a test is never stored. `row` in an error is the 1-based line number of the file.
+ * Delimiter: tab or semicolon when the first line holds one, else comma; with tab or semicolon a
+ * decimal comma is read as a decimal point.
  */
 import Papa from "papaparse";
 import { type ColumnMappingInput, type FlowTestInput, LIFT_UNITS, MAX_POINTS, columnMappingSchema } from "./schema";
@@ -161,15 +163,26 @@ function parseNumber(text: string, delimiter: string): number | null {
   return Number.isFinite(value) ? value : null;
 }
 
+/**
+ * Tab, then semicolon, then comma, judged on the first line that is neither blank nor a comment.
+ * Explicit rather than papaparse's guess, which picks the comma in "2,5;33,0" (decimal commas).
+ */
+export function detectDelimiter(text: string): string {
+  const first = text.split(/\r\n|\n|\r/).find((line) => line.trim() !== "" && !line.trim().startsWith("#")) ?? "";
+  if (first.includes("\t")) return "\t";
+  if (first.includes(";")) return ";";
+  return ",";
+}
+
 const isBlank = (cells: string[]) => cells.every((c) => c.trim() === "");
 const isComment = (cells: string[]) => (cells[0] ?? "").trim().startsWith("#");
 
 /** Imports a flow-bench CSV. Pass `mapping` when the headers are not self-describing. */
 export function parseFlowCsv(text: string, mapping?: ColumnMappingInput): CsvImport {
   const source = text.replace(/^\uFEFF/, "");
-  const parsed = Papa.parse<string[]>(source, { header: false, skipEmptyLines: false, delimiter: "" });
+  const delimiter = detectDelimiter(source);
+  const parsed = Papa.parse<string[]>(source, { header: false, skipEmptyLines: false, delimiter });
   const lines = parsed.data;
-  const delimiter = parsed.meta.delimiter || ",";
 
   // Line numbers follow the file: papaparse yields one array per line (quoted newlines aside).
   const content = lines.map((cells, i) => ({ cells, line: i + 1 })).filter(({ cells }) => !isBlank(cells) && !isComment(cells));
