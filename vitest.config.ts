@@ -6,7 +6,7 @@ import path from "node:path";
 //  integration – route handlers and verbs against a fresh migrated SQLite and the real local fakes
 //  e2e         – Debian's chromium (playwright-core) against a production build of the app
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(__dirname) } },
+  resolve: { alias: { "@": path.resolve(import.meta.dirname) } },
   test: {
     projects: [
       {

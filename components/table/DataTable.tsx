@@ -10,6 +10,7 @@ import {
   tableFeatures,
   useTable,
   type ColumnDef,
+  type RowData,
   type SortingState,
 } from "@tanstack/react-table";
 import { useEffect, useMemo, useState } from "react";
@@ -19,11 +20,11 @@ import { inputClass } from "../ui/Field";
 import { fetchJson } from "./fetch-json";
 
 export const tableFeaturesSet = tableFeatures({ rowSortingFeature });
-export type Columns<T> = Array<ColumnDef<typeof tableFeaturesSet, T>>;
+export type Columns<T extends RowData> = Array<ColumnDef<typeof tableFeaturesSet, T>>;
 
 type PageResult<T> = { rows: T[]; total: number; page: number; pageSize: number; pageCount: number };
 
-export function DataTable<T>({
+export function DataTable<T extends RowData>({
   endpoint,
   columns,
   queryKey,

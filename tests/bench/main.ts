@@ -14,3 +14,4 @@ for (const [name, load] of suites) {
   const suite = await load();
   await suite.run();
 }
+export {};
