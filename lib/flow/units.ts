@@ -5,8 +5,8 @@
 
 /** Conventional inch of water: 0.0254 m × 1000 kg/m³ × 9.80665 m/s² (NIST SP 811 lists 2.490 889 E+02). */
 export const PA_PER_INCH_OF_WATER = 0.0254 * 1000 * 9.80665;
-/** Conventional inch of mercury (13 595.1 kg/m³), NIST SP 811 App. B.8. */
-export const PA_PER_INCH_OF_MERCURY = 3386.389;
+/** Conventional inch of mercury: 0.0254 m × 13 595.1 kg/m³ × 9.80665 m/s² (NIST SP 811 lists 3.386 389 E+03). */
+export const PA_PER_INCH_OF_MERCURY = 0.0254 * 13595.1 * 9.80665;
 /** Exact: 1 ft³/min = 0.3048³ m³ / 60 s. */
 export const M3S_PER_CFM = 4.719474432e-4;
 export const M_PER_INCH = 0.0254;
