@@ -72,7 +72,8 @@ const UNIT_ALIASES: Record<Role, Record<string, string>> = {
   } satisfies Record<string, PressureUnit>,
 };
 
-const EXAMPLES: Record<Role, string> = {
+/** Header forms the import recognises, for the upload screen's help text. */
+export const CSV_HEADER_EXAMPLES: Record<Role, string> = {
   lift: "lift_in or lift_mm",
   flow: "flow_cfm, flow_ls, flow_m3s or flow_m3h",
   depression: "depression_inh2o, depression_pa or depression_kpa",
@@ -97,8 +98,8 @@ function detectColumns(headers: string[]): Detection {
           row: 1,
           column: header,
           message: unitText
-            ? `unknown unit "${unitText}" for ${role}; name the column ${EXAMPLES[role]}, or map it`
-            : `the ${role} column names no unit; name it ${EXAMPLES[role]}, or map it`,
+            ? `unknown unit "${unitText}" for ${role}; name the column ${CSV_HEADER_EXAMPLES[role]}, or map it`
+            : `the ${role} column names no unit; name it ${CSV_HEADER_EXAMPLES[role]}, or map it`,
         });
       } else if (picks[role]) {
         errors.push({ row: 1, column: header, message: `two ${role} columns ("${picks[role]!.name}" and "${header}"); keep one or map it` });
@@ -112,7 +113,7 @@ function detectColumns(headers: string[]): Detection {
     if (!reported.has(role)) {
       errors.push({
         row: 1,
-        message: `no ${role} column found in the header (${headers.map((h) => `"${h}"`).join(", ") || "empty"}); name it ${EXAMPLES[role]}, or map the columns`,
+        message: `no ${role} column found in the header (${headers.map((h) => `"${h}"`).join(", ") || "empty"}); name it ${CSV_HEADER_EXAMPLES[role]}, or map the columns`,
       });
     }
   }

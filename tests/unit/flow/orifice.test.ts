@@ -55,3 +55,12 @@ describe("correction to standard air", () => {
   });
   it("is the identity at equal densities", () => expect(flowAtDensity(123.4, 1.2, 1.2)).toBe(123.4));
 });
+
+describe("the compressibility note", () => {
+  it("quotes the overstatement the expansibility actually gives", async () => {
+    const { COMPRESSIBILITY_NOTE } = await import("@/lib/flow/labels");
+    const overstatement = (flowAtDepression(1, inH2O(10), inH2O(28)) / compressibleFlowRatio(inH2O(10), inH2O(28)) - 1) * 100;
+    expect(overstatement).toBeCloseTo(2.53, 2); // domain.md §2: 1.673320 vs 1.632076
+    expect(COMPRESSIBILITY_NOTE).toContain(`${overstatement.toFixed(1)} %`);
+  });
+});
