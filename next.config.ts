@@ -6,6 +6,10 @@ const nextConfig: NextConfig = {
   // Native and Node-only packages stay outside the server bundle.
   serverExternalPackages: ["better-sqlite3", "pdfkit"],
   poweredByHeader: false,
+  // Several checkouts of work can build side by side (NEXT_DIST_DIR=.next-x); CI uses the default.
+  distDir: process.env.NEXT_DIST_DIR ?? ".next",
+  // Type errors are caught by `tsc --noEmit` as its own CI step, before the build.
+  typescript: { ignoreBuildErrors: true },
 };
 
 export default nextConfig;

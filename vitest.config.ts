@@ -6,7 +6,13 @@ import path from "node:path";
 //  integration – route handlers and verbs against a fresh migrated SQLite and the real local fakes
 //  e2e         – Debian's chromium (playwright-core) against a production build of the app
 export default defineConfig({
-  resolve: { alias: { "@": path.resolve(import.meta.dirname) } },
+  resolve: {
+    alias: {
+      "@": path.resolve(import.meta.dirname),
+      // Next's bundler provides this marker module; in tests it is empty.
+      "server-only": path.resolve(import.meta.dirname, "tests/support/server-only.ts"),
+    },
+  },
   test: {
     projects: [
       {

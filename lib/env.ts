@@ -35,7 +35,7 @@ export type Env = z.infer<typeof schema> & { DATABASE_PATH: string };
 
 let cached: Env | undefined;
 
-export function readEnv(source: NodeJS.ProcessEnv = process.env): Env {
+export function readEnv(source: Record<string, string | undefined> = process.env): Env {
   const raw = Object.fromEntries(Object.entries(source).filter(([, v]) => v !== undefined && v !== ""));
   const parsed = schema.safeParse(raw);
   if (!parsed.success) {

@@ -48,9 +48,9 @@ function loadOrCreateSecret(dataDir: string): string {
   return secret;
 }
 
-function runStep(label: string, args: string[], env: NodeJS.ProcessEnv, echo: boolean): void {
+function runStep(label: string, args: string[], env: Record<string, string>, echo: boolean): void {
   if (echo) process.stdout.write(`… ${label}\n`);
-  const res = spawnSync(process.execPath, args, { cwd: projectRoot, env, stdio: echo ? "inherit" : "pipe", encoding: "utf8" });
+  const res = spawnSync(process.execPath, args, { cwd: projectRoot, env: env as NodeJS.ProcessEnv, stdio: echo ? "inherit" : "pipe", encoding: "utf8" });
   if (res.status !== 0) {
     const detail = echo ? "" : `\n${res.stdout ?? ""}${res.stderr ?? ""}`;
     throw new Error(`${label} failed (exit ${res.status})${detail}`);
@@ -98,11 +98,12 @@ export async function startStack(options: StackOptions = {}): Promise<RunningSta
 
   let app: ChildProcess | undefined;
   const stop = async () => {
-    if (app && app.exitCode === null) {
-      const exited = new Promise((r) => app!.once("exit", r));
-      app.kill("SIGTERM");
+    const child = app;
+    if (child && child.exitCode === null) {
+      const exited = new Promise((r) => child.once("exit", r));
+      child.kill("SIGTERM");
       await Promise.race([exited, new Promise((r) => setTimeout(r, 5000))]);
-      if (app.exitCode === null) app.kill("SIGKILL");
+      if (child.exitCode === null) child.kill("SIGKILL");
     }
     await fakes.stop();
   };
@@ -123,20 +124,21 @@ export async function startStack(options: StackOptions = {}): Promise<RunningSta
     runStep("loading the demo shop", tsxArgs("db/seed.ts"), env, show);
     if (options.build ?? true) runStep("building the app (about a minute)", [nextBin(), "build"], env, show);
 
-    app = spawn(process.execPath, [nextBin(), "start", "-p", String(port), "-H", HOST], {
+    const started = spawn(process.execPath, [nextBin(), "start", "-p", String(port), "-H", HOST], {
       cwd: projectRoot,
-      env,
+      env: env as NodeJS.ProcessEnv,
       stdio: show ? "inherit" : ["ignore", "pipe", "pipe"],
     });
+    app = started;
     if (!show) {
       // Keep the last lines so a failed start can say why.
       let tail = "";
       const keep = (b: Buffer) => (tail = (tail + b.toString()).slice(-4000));
-      app.stdout?.on("data", keep);
-      app.stderr?.on("data", keep);
-      app.once("exit", (code) => code && code !== 0 && process.stderr.write(`app exited (${code}):\n${tail}\n`));
+      started.stdout?.on("data", keep);
+      started.stderr?.on("data", keep);
+      started.once("exit", (code) => code && code !== 0 && process.stderr.write(`app exited (${code}):\n${tail}\n`));
     }
-    await waitForHealth(url, app);
+    await waitForHealth(url, started);
     return { url, env, fakes, stop };
   } catch (err) {
     await stop();

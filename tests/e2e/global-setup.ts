@@ -17,7 +17,7 @@ declare module "vitest" {
 }
 
 export default async function setup(project: TestProject) {
-  if (!fs.existsSync(path.join(process.cwd(), ".next", "BUILD_ID"))) {
+  if (!fs.existsSync(path.join(process.cwd(), process.env.NEXT_DIST_DIR ?? ".next", "BUILD_ID"))) {
     throw new Error("browser tests need a production build: run `npx next build` first (tests/run-all.sh does)");
   }
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), "portolan-e2e-"));
