@@ -12,12 +12,12 @@ import { ADMINS, ROLE_LABEL } from "../auth/roles";
 import { hashPassword } from "../auth/passwords";
 import { INVITATION_TTL_MS, hashToken, newToken, tokenState } from "../auth/tokens";
 import { AppError } from "../errors";
-import { sendMail } from "../mail";
+import { sendMail, type Mailer } from "../mail";
 import { invitationMail } from "../mail/templates";
 import { parseInput } from "../validation";
 import { inviteSchema, setPasswordSchema } from "./schema";
 
-export async function inviteUser(db: Db, actor: Actor | null, input: unknown, appUrl: string, now = Date.now()) {
+export async function inviteUser(db: Db, actor: Actor | null, input: unknown, appUrl: string, now = Date.now(), mailer?: Mailer) {
   const who = requireRole(actor, ADMINS);
   const { email, role } = parseInput(inviteSchema, input);
   if (db.select({ id: users.id }).from(users).where(eq(users.email, email)).get()) {
@@ -27,7 +27,7 @@ export async function inviteUser(db: Db, actor: Actor | null, input: unknown, ap
   const expiresAt = now + INVITATION_TTL_MS;
   const link = `${appUrl.replace(/\/$/, "")}/invite/${token}`;
   const mail = invitationMail({ link, roleLabel: ROLE_LABEL[role], inviterName: who.name, expiresAt: new Date(expiresAt) });
-  await sendMail({ to: email, ...mail });
+  await sendMail({ to: email, ...mail }, mailer);
   return db.transaction((tx) => {
     // A newer invitation replaces any still-open one for the same address.
     tx.update(invitations)
