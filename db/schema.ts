@@ -402,6 +402,8 @@ export const jobs = sqliteTable(
     machineId: integer("machine_id").references(() => machines.id),
     dueOn: text("due_on"),
     setupMinutes: real("setup_minutes").notNull().default(60),
+    /** Ports of each kind cut on one head (one per cylinder on that casting, usually); null = derive from the head type. */
+    portsPerHead: integer("ports_per_head"),
     state: text("state", { enum: JOB_STATES }).notNull().default("quoted"),
     notes: text("notes").notNull().default(""),
     createdAt: createdAt(),

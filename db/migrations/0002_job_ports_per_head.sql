@@ -1,0 +1,1 @@
+ALTER TABLE `jobs` ADD `ports_per_head` integer;
