@@ -37,3 +37,8 @@ export function referenceSha256(chunks: Iterable<Buffer>): string {
 export function concat(chunks: Iterable<Buffer>): Buffer {
   return Buffer.concat([...chunks]);
 }
+
+/** A copy typed as fetch and Blob accept it (Node's Buffer type may sit on a SharedArrayBuffer). */
+export function asBody(bytes: Uint8Array): Uint8Array<ArrayBuffer> {
+  return new Uint8Array(bytes);
+}

@@ -6,7 +6,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createStorage, newObjectId, objectKey, planParts, type Storage } from "@/lib/storage";
 import { startTestS3, type TestS3 } from "../support/fakes";
-import { concat, pseudoRandomChunks, referenceSha256 } from "./bytes";
+import { asBody, concat, pseudoRandomChunks, referenceSha256 } from "./bytes";
 
 const ORIGIN = "http://localhost:3000";
 let s3: TestS3;
@@ -22,7 +22,7 @@ afterAll(async () => {
 });
 
 async function putPart(url: string, body: Buffer): Promise<Response> {
-  return fetch(url, { method: "PUT", body, headers: { origin: ORIGIN } });
+  return fetch(url, { method: "PUT", body: asBody(body), headers: { origin: ORIGIN } });
 }
 
 describe("multipart upload from a browser", () => {

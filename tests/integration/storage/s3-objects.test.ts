@@ -17,7 +17,7 @@ import {
 import { sha256OfStream } from "@/lib/storage/checksum";
 import { findFreePort } from "@/storage-fake/net";
 import { startTestS3, type TestS3 } from "../support/fakes";
-import { concat, pseudoRandomChunks, referenceSha256 } from "./bytes";
+import { asBody, concat, pseudoRandomChunks, referenceSha256 } from "./bytes";
 
 let s3: TestS3;
 let store: Storage;
@@ -155,7 +155,7 @@ describe("presigned URLs from plain fetch", () => {
     const key = objectKey("photo", newObjectId());
     const bytes = concat(pseudoRandomChunks(70_000, 5));
     const put = await store.presignPut(key, { contentType: "image/jpeg" });
-    const res = await fetch(put.url, { method: "PUT", headers: put.headers, body: bytes });
+    const res = await fetch(put.url, { method: "PUT", headers: put.headers, body: asBody(bytes) });
     expect(res.status).toBe(200);
 
     const get = await store.presignGet(key, { downloadName: "intake port, cyl 3 – before.jpg" });

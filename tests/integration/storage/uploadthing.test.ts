@@ -11,6 +11,7 @@ import type { AddressInfo } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { createRouteHandler, createUploadthing, UTApi, type FileRouter } from "uploadthing/server";
 import { startTestUploadthing, type TestUploadthing } from "../support/fakes";
+import { asBody } from "./bytes";
 
 type Completion = { metadata: unknown; file: { key: string; name: string; size: number; type: string; fileHash: string; ufsUrl: string } };
 
@@ -51,7 +52,7 @@ async function startApp(isDev: boolean) {
   const url = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
   handler = createRouteHandler({
     router,
-    config: { token: ut.token, ingestUrl: ut.url, apiUrl: ut.url, isDev, logLevel: "Error", callbackUrl: `${url}/api/uploadthing` },
+    config: { token: ut.token, ingestUrl: ut.url, isDev, logLevel: "Error", callbackUrl: `${url}/api/uploadthing` },
   });
   const app = {
     url,
@@ -116,7 +117,7 @@ describe.each([
   it("stores the file, runs onUploadComplete with the middleware's metadata, and serves the same bytes", async () => {
     const app = await startApp(isDev);
     const bytes = pngBytes(200_000, isDev ? 2 : 1);
-    const file = new File([bytes], "bowl, short side – cyl 2.png", { type: "image/png", lastModified: 1_700_000_000_000 });
+    const file = new File([asBody(bytes)], "bowl, short side – cyl 2.png", { type: "image/png", lastModified: 1_700_000_000_000 });
 
     const [presigned] = await requestUpload(app.url, "masterPhoto", [file]);
     expect(presigned!.name).toBe(file.name);
@@ -146,8 +147,8 @@ describe.each([
 describe("the stand-in's checks", () => {
   it("uploads a PDF and an image in one request", async () => {
     const app = await startApp(false);
-    const pdf = new File([Buffer.from("%PDF-1.7\n% setup sheet\n%%EOF\n")], "setup sheet.pdf", { type: "application/pdf" });
-    const img = new File([pngBytes(5000, 9)], "plate.png", { type: "image/png" });
+    const pdf = new File([asBody(Buffer.from("%PDF-1.7\n% setup sheet\n%%EOF\n"))], "setup sheet.pdf", { type: "application/pdf" });
+    const img = new File([asBody(pngBytes(5000, 9))], "plate.png", { type: "image/png" });
     const presigned = await requestUpload(app.url, "masterPhoto", [pdf, img]);
     expect(presigned).toHaveLength(2);
     const results = await Promise.all(presigned.map((p, i) => sendFile(p, [pdf, img][i]!)));
@@ -157,7 +158,7 @@ describe("the stand-in's checks", () => {
 
   it("refuses a presigned URL whose parameters were changed", async () => {
     const app = await startApp(false);
-    const file = new File([pngBytes(1000, 4)], "a.png", { type: "image/png" });
+    const file = new File([asBody(pngBytes(1000, 4))], "a.png", { type: "image/png" });
     const [presigned] = await requestUpload(app.url, "masterPhoto", [file]);
     const tampered = presigned!.url.replace(/x-ut-file-size=\d+/, "x-ut-file-size=999999");
     const form = new FormData();
@@ -170,10 +171,10 @@ describe("the stand-in's checks", () => {
 
   it("refuses more bytes than the URL was signed for", async () => {
     const app = await startApp(false);
-    const declared = new File([pngBytes(1000, 5)], "b.png", { type: "image/png" });
+    const declared = new File([asBody(pngBytes(1000, 5))], "b.png", { type: "image/png" });
     const [presigned] = await requestUpload(app.url, "masterPhoto", [declared]);
     const form = new FormData();
-    form.append("file", new File([pngBytes(5000, 5)], "b.png", { type: "image/png" }));
+    form.append("file", new File([asBody(pngBytes(5000, 5))], "b.png", { type: "image/png" }));
     const res = await fetch(presigned!.url, { method: "PUT", body: form });
     expect(res.status).toBe(413);
     expect((await res.json()).error).toMatch(/larger than the declared 1000 bytes/);
@@ -192,7 +193,7 @@ describe("the stand-in's checks", () => {
 
   it("serves private files only through a signed link made by the server SDK", async () => {
     const app = await startApp(false);
-    const pdf = new File([Buffer.from("%PDF-1.7\nprivate\n")], "offsets.pdf", { type: "application/pdf" });
+    const pdf = new File([asBody(Buffer.from("%PDF-1.7\nprivate\n"))], "offsets.pdf", { type: "application/pdf" });
     const [presigned] = await requestUpload(app.url, "privateSheet", [pdf]);
     const put = await sendFile(presigned!, pdf);
     expect(put.status).toBe(200);
