@@ -40,6 +40,8 @@ export type RunningFakes = {
   uploadthingUrl: string;
   /** The environment the app needs to use these stand-ins (merge into the app's env). */
   env: Record<string, string>;
+  /** Settles when any stand-in ends on its own (a crash), naming it; never after stop(). */
+  firstExit: Promise<{ service: string; code: number | null; output: string }>;
   stop(): Promise<void>;
 };
 
@@ -105,7 +107,9 @@ export async function startFakes(options: FakesOptions = {}): Promise<RunningFak
     track(startMailCatcher({ smtpPort: ports.smtpPort, webPort: ports.mailWebPort, host: HOST, directory: path.join(dataDir, "mail"), echo })),
     track(startUploadthingProcess(ports.uploadthingPort, uploadthingDir, token, echo)),
   ]);
+  let stopping = false;
   const stopAll = async () => {
+    stopping = true;
     await Promise.all(started.map((s) => s.stop()));
   };
   const failed = results.find((r): r is PromiseRejectedResult => r.status === "rejected");
@@ -141,12 +145,17 @@ export async function startFakes(options: FakesOptions = {}): Promise<RunningFak
     UPLOADTHING_UFS_APP_ID_LOCATION: "path",
   };
 
+  const firstExit = Promise.race(
+    started.map((s) => s.exited.then((code) => ({ service: s.name, code, output: s.recentOutput() }))),
+  ).then((exit) => (stopping ? new Promise<never>(() => undefined) : exit));
+
   return {
     s3Url: s3.url,
     smtp: { host: mail.smtpHost, port: mail.smtpPort },
     mailWebUrl: mail.webUrl,
     uploadthingUrl: ut.url,
     env,
+    firstExit,
     stop: stopAll,
   };
 }
@@ -214,12 +223,15 @@ async function main(): Promise<number> {
     );
   }
 
-  await new Promise<void>((resolve) => {
-    process.once("SIGINT", resolve);
-    process.once("SIGTERM", resolve);
+  const signalled = new Promise<"signal">((resolve) => {
+    process.once("SIGINT", () => resolve("signal"));
+    process.once("SIGTERM", () => resolve("signal"));
   });
+  const outcome = await Promise.race([signalled, fakes.firstExit]);
   await fakes.stop();
-  return 0;
+  if (outcome === "signal") return 0;
+  process.stderr.write(`fakes: the ${outcome.service} stand-in stopped unexpectedly (exit ${outcome.code}); stopped the others.\n${outcome.output}\n`);
+  return 1;
 }
 
 if (process.argv[1] && /storage-fake[\\/]start\.ts$/.test(process.argv[1])) {
