@@ -27,8 +27,8 @@ export function PendingInvitations() {
     <ul className="flex flex-col divide-y divide-rule text-sm">
       {list.data.rows.map((inv) => (
         <li key={inv.id} className="flex items-center justify-between gap-2 py-2">
-          <div>
-            <p className="font-semibold">{inv.email}</p>
+          <div className="min-w-0">
+            <p className="font-semibold break-all">{inv.email}</p>
             <p className="text-ink-soft">
               {ROLE_LABEL[inv.role]} · expires {formatDateTime(inv.expiresAt)}
             </p>

@@ -64,7 +64,7 @@ export function UsersTable({ currentUserId }: { currentUserId: number }) {
     { accessorKey: "email", header: "E-mail" },
     { accessorKey: "role", header: "Role", cell: (c) => <RoleCell row={c.row.original} disabled={c.row.original.id === currentUserId} /> },
     { accessorKey: "active", header: "Account", cell: (c) => <ActiveCell row={c.row.original} disabled={c.row.original.id === currentUserId} /> },
-    { accessorKey: "lastSignInAt", header: "Last sign-in", cell: (c) => formatDateTime(c.getValue() as number | null) },
+    { accessorKey: "lastSignInAt", header: "Last sign-in", cell: (c) => <span className="whitespace-nowrap">{formatDateTime(c.getValue() as number | null)}</span> },
   ];
   return <DataTable endpoint="/api/users" queryKey="users" columns={columns} searchLabel="Name or e-mail" initialSort={{ id: "name", desc: false }} />;
 }

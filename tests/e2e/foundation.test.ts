@@ -74,7 +74,7 @@ describe("invitations", () => {
     await signInAs(admin.page, "admin");
     await admin.page.goto("/admin/users");
     const email = `new.machinist.${Date.now()}@harbourline.invalid`;
-    await admin.page.getByLabel("E-mail").fill(email);
+    await admin.page.getByLabel("E-mail", { exact: true }).fill(email);
     await admin.page.locator("#invite-role").selectOption("machinist");
     await admin.page.getByRole("button", { name: "Send invitation" }).click();
     await admin.page.getByText(`Invitation sent to ${email}.`).waitFor();

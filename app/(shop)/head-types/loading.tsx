@@ -1,3 +1,5 @@
+// Loading skeletons sit in the page segments, not on the whole (shop) group: a group-level
+// Suspense boundary would flush a 200 before a page can answer forbidden() with a real 403.
 export default function Loading() {
   return (
     <div aria-busy="true" aria-live="polite" className="animate-pulse space-y-4">

@@ -35,7 +35,7 @@ export async function waitForMail(to: string, subjectPart: string, timeoutMs = 1
   const base = inject("mailWebUrl");
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    const res = await fetch(`${base}/email`);
+    const res = await fetch(`${base}/api/email`);
     if (res.ok) {
       const all = (await res.json()) as CaughtMail[];
       const hit = all.reverse().find((m) => m.to.some((t) => t.address === to) && m.subject.includes(subjectPart));
