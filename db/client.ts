@@ -30,7 +30,7 @@ export function db(): Db {
 }
 
 /** Tests point the process at a fresh file. */
-export function useDatabase(instance: Db): void {
+export function setDatabase(instance: Db): void {
   globalForDb.portolanDb = instance;
 }
 

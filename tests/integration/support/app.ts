@@ -8,7 +8,7 @@ import path from "node:path";
 import bcrypt from "bcryptjs";
 import { encode } from "next-auth/jwt";
 import { NextRequest } from "next/server";
-import { useDatabase, type Db } from "@/db/client";
+import { setDatabase, type Db } from "@/db/client";
 import { users, type Role } from "@/db/schema";
 import { freshDb } from "../../support/db";
 
@@ -18,7 +18,7 @@ const SECRET = () => process.env.NEXTAUTH_SECRET ?? "integration-tests-only";
 export function freshAppDb(): Db {
   const dir = fs.mkdtempSync(path.join(process.env.DATA_DIR ?? os.tmpdir(), "db-"));
   const db = freshDb(path.join(dir, "portolan.db"));
-  useDatabase(db);
+  setDatabase(db);
   return db;
 }
 
