@@ -6,7 +6,11 @@
  * the app needs, and stops them all on Ctrl-C / SIGTERM.
  *
  *   npm run fakes -- [--s3-port 9310] [--smtp-port 1025] [--mail-web-port 1080]
- *                    [--uploadthing-port 9320] [--data-dir data] [--app-origin URL ...] [--json]
+ *                    [--uploadthing-port 9320] [--data-dir data] [--app-origin URL ...]
+ *                    [--json] [--verbose]
+ *
+ * Exit codes: 0 stopped by a signal, 1 could not start (busy port, a stand-in failed) or a
+ * stand-in died, 2 usage error.
  *
  * startFakes() is the same thing for the demo launcher and the browser-test setup.
  */
@@ -187,9 +191,9 @@ async function main(): Promise<number> {
     return 2;
   }
 
-  let fakes: RunningFakes;
+  let options: FakesOptions;
   try {
-    fakes = await startFakes({
+    options = {
       s3Port: portOption(values["s3-port"], "s3-port"),
       smtpPort: portOption(values["smtp-port"], "smtp-port"),
       mailWebPort: portOption(values["mail-web-port"], "mail-web-port"),
@@ -197,7 +201,15 @@ async function main(): Promise<number> {
       dataDir: values["data-dir"],
       appOrigins: values["app-origin"],
       echo: values.verbose,
-    });
+    };
+  } catch (err) {
+    process.stderr.write(`fakes: ${(err as Error).message}\n`);
+    return 2;
+  }
+
+  let fakes: RunningFakes;
+  try {
+    fakes = await startFakes(options);
   } catch (err) {
     process.stderr.write(`fakes: ${(err as Error).message}\n`);
     return 1;
