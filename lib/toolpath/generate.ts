@@ -23,7 +23,10 @@ export type PortProgramOptions = {
 const HEADER_LINES = 6;
 const FOOTER_LINES = 4;
 const TOOL_OVERHEAD_LINES = 13;
-const POINTS_PER_RING = 240;
+/** Points around one ring; small programs use fewer so they still sweep along the port. */
+const MAX_POINTS_PER_RING = 240;
+const MIN_POINTS_PER_RING = 24;
+const MIN_RINGS = 8;
 
 type ToolSpec = { label: string; radius: number; rpm: number; feed: number; plunge: number };
 
@@ -80,23 +83,25 @@ export function* generatePortProgram(options: PortProgramOptions): Generator<str
     out.line(`G0 Z${L(first.z + 5)}`);
     out.line(`G1 Z${L(first.z)} F${fixed(len(spec.plunge), inch ? 2 : 1)}`);
     // the cut: rings from the port entry towards the bowl, one point per line
-    const rings = Math.max(1, Math.ceil(budget / POINTS_PER_RING));
+    const perRing = Math.max(MIN_POINTS_PER_RING, Math.min(MAX_POINTS_PER_RING, Math.floor(budget / MIN_RINGS)));
+    const rings = Math.max(1, Math.ceil(budget / perRing));
     let emitted = 0;
     let feedWritten = false;
     for (let ring = 0; ring < rings && emitted < budget; ring++) {
       const s = rings === 1 ? 0 : ring / (rings - 1);
       const wobble = (random() - 0.5) * 0.02;
-      for (let k = 0; k < POINTS_PER_RING && emitted < budget; k++) {
-        const theta = (2 * Math.PI * (k + 1)) / POINTS_PER_RING;
+      const step = (2 * Math.PI) / perRing;
+      for (let k = 0; k < perRing && emitted < budget; k++) {
+        const theta = step * (k + 1);
         const p = portPoint(s, theta, spec.radius, exhaust, wobble);
         const slow = Math.cos(theta) < -0.7; // the short-side turn is cut slower
         let text = `X${L(p.x)} Y${L(p.y)} Z${L(p.z)} A${fixed(p.a, 3)} B${fixed(p.b, 3)}`;
         if (!feedWritten) {
           text = `G1 ${text} F${fixed(len(spec.feed), inch ? 2 : 0)}`;
           feedWritten = true;
-        } else if (slow && Math.cos(theta - (2 * Math.PI) / POINTS_PER_RING) >= -0.7) {
+        } else if (slow && Math.cos(theta - step) >= -0.7) {
           text += ` F${fixed(len(spec.feed * 0.6), inch ? 2 : 0)}`;
-        } else if (!slow && Math.cos(theta - (2 * Math.PI) / POINTS_PER_RING) < -0.7) {
+        } else if (!slow && Math.cos(theta - step) < -0.7) {
           text += ` F${fixed(len(spec.feed), inch ? 2 : 0)}`;
         }
         out.line(text);
