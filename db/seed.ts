@@ -7,13 +7,16 @@ import { fileURLToPath } from "node:url";
 import { count } from "drizzle-orm";
 import { db as defaultDb, type Db } from "./client";
 import { users } from "./schema";
+import { seedFlow } from "./seed/flow";
 import { seedLibrary } from "./seed/library";
 import { seedPeople } from "./seed/people";
 
 export type SeedContext = { people: ReturnType<typeof seedPeople>; library: ReturnType<typeof seedLibrary> };
 
 /** Later parts of the demo (programs, jobs, flow tests) hook in here, in order. */
-export const seedSteps: Array<(db: Db, ctx: SeedContext) => Promise<void> | void> = [];
+export const seedSteps: Array<(db: Db, ctx: SeedContext) => Promise<void> | void> = [
+  seedFlow,
+];
 
 export async function seedDemo(db: Db = defaultDb()): Promise<boolean> {
   if (db.select({ n: count() }).from(users).get()!.n > 0) return false;
