@@ -15,6 +15,7 @@ const groups: Record<string, () => Promise<Group>> = {
   flow: () => import("./flow"),
   program: () => import("./program"),
   audit: () => import("./audit"),
+  storage: () => import("./storage"),
 };
 
 export async function main(argv: string[], io: CliIo = defaultIo): Promise<number> {
