@@ -205,8 +205,8 @@ export function analyzePort(cloud: CloudInput, options: AnalyzeOptions = {}): Po
   if (count < MIN_POINTS) throw new GeometryInputError("too-few-points", `only ${count} points: at least ${MIN_POINTS} are needed for a port profile`);
   const warnings: GeometryWarning[] = [...(cloud.warnings ?? [])];
   const stats = cloudStats(positions, count);
-  const [s1, s2] = stats.principalSpreadMm;
-  if (!(s1 > 1e-3) || !(s2 > 1e-3 * s1)) {
+  const [s1, , s3] = stats.principalSpreadMm;
+  if (!(s1 > 1e-3) || !(s3 > 1e-3 * s1)) {
     throw new GeometryInputError("not-a-tube", "the points lie on a line or a plane, not on the wall of a port");
   }
 

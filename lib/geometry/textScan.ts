@@ -101,7 +101,11 @@ export class TokenScanner {
   tokEnd = 0;
   private limit = 0;
 
-  constructor(readonly cur: ByteCursor) {
+  constructor(
+    readonly cur: ByteCursor,
+    firstLine = 1,
+  ) {
+    this.line = firstLine;
     this.setLimit();
   }
 

@@ -91,7 +91,7 @@ export async function readPly(cur: ByteCursor, scale: number): Promise<PointClou
   const ctx = { positions, faces, plan, vertexCount, scale };
 
   if (header.format === "ascii") {
-    const sc = new TokenScanner(cur);
+    const sc = new TokenScanner(cur, header.lines + 1);
     for (const el of header.elements) await readAsciiElement(sc, el, el === vertexEl, el === faceEl, ctx);
     if (await sc.nextAsync()) {
       warnings.push({ code: "trailing-data", message: `PLY: data after the last element (line ${sc.line}) was ignored` });

@@ -14,6 +14,8 @@ export type PlyHeader = {
   elements: PlyElement[];
   /** Bytes from the start of the file to the first data byte. */
   length: number;
+  /** Lines in the header, so errors in ascii data can name the file's line. */
+  lines: number;
 };
 
 const TYPE_ALIASES: Record<string, PlyScalarType> = {
@@ -146,5 +148,5 @@ export function parsePlyHeader(bytes: Uint8Array): PlyHeader | null {
     }
   }
   if (!format) throw new GeometryInputError("bad-header", "PLY header: missing format line");
-  return { format, elements, length: headerEnd };
+  return { format, elements, length: headerEnd, lines: text.split("\n").length - 1 };
 }
