@@ -1,4 +1,4 @@
-import { count, like, or } from "drizzle-orm";
+import { count, eq, like, or } from "drizzle-orm";
 import type { Db } from "../client";
 import { headTypes } from "../schema";
 import { pageOf, type Page, type TableQuery } from "@/lib/paging";
@@ -28,4 +28,17 @@ export function listHeadTypes(db: Db, query: TableQuery): Page<HeadTypeRow> {
     .all();
   const total = db.select({ n: count() }).from(headTypes).where(where).get()!.n;
   return pageOf(rows, total, query);
+}
+
+export function getHeadType(db: Db, id: number): HeadTypeRow | undefined {
+  return db.select().from(headTypes).where(eq(headTypes.id, id)).get();
+}
+
+/** Choices for forms: every casting, by number. */
+export function headTypeOptions(db: Db) {
+  return db
+    .select({ id: headTypes.id, castingNumber: headTypes.castingNumber, engineFamily: headTypes.engineFamily, intakeValveMm: headTypes.intakeValveMm, exhaustValveMm: headTypes.exhaustValveMm })
+    .from(headTypes)
+    .orderBy(headTypes.castingNumber)
+    .all();
 }
