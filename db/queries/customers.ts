@@ -5,9 +5,9 @@ import { customers, heads, jobs } from "../schema";
 import { pageOf, type Page, type TableQuery } from "@/lib/paging";
 import { likePattern, offsetFor, orderFor } from "./paging";
 
-const openJobsSql = sql<number>`(select count(*) from jobs j where j.customer_id = ${customers.id} and j.state in ('quoted','scheduled','on_machine','in_inspection'))`;
-const jobsSql = sql<number>`(select count(*) from jobs j where j.customer_id = ${customers.id})`;
-const headsSql = sql<number>`(select count(*) from heads h join jobs j on j.id = h.job_id where j.customer_id = ${customers.id})`;
+const openJobsSql = sql<number>`(select count(*) from jobs j where j.customer_id = "customers"."id" and j.state in ('quoted','scheduled','on_machine','in_inspection'))`;
+const jobsSql = sql<number>`(select count(*) from jobs j where j.customer_id = "customers"."id")`;
+const headsSql = sql<number>`(select count(*) from heads h join jobs j on j.id = h.job_id where j.customer_id = "customers"."id")`;
 
 const columns = {
   id: customers.id,

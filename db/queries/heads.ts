@@ -5,8 +5,8 @@ import { customers, headTypes, heads, jobs } from "../schema";
 import { pageOf, type Page, type TableQuery } from "@/lib/paging";
 import { likePattern, offsetFor, orderFor } from "./paging";
 
-const cutsSql = sql<number>`(select count(*) from cuts c where c.head_id = ${heads.id})`;
-const lastCutSql = sql<number | null>`(select max(c.started_at) from cuts c where c.head_id = ${heads.id})`;
+const cutsSql = sql<number>`(select count(*) from cuts c where c.head_id = "heads"."id")`;
+const lastCutSql = sql<number | null>`(select max(c.started_at) from cuts c where c.head_id = "heads"."id")`;
 
 const columns = {
   id: heads.id,

@@ -140,7 +140,7 @@ const flaggedSql = sql<number>`(${jobs.state} in ('quoted','scheduled','on_machi
   (${jobs.cutIntake} = 1 and ${ir.state} in ('superseded','withdrawn')) or
   (${jobs.cutExhaust} = 1 and ${er.state} in ('superseded','withdrawn'))))`;
 
-const headCountSql = sql<number>`(select count(*) from heads h where h.job_id = ${jobs.id} and h.state != 'scrapped')`;
+const headCountSql = sql<number>`(select count(*) from heads h where h.job_id = "jobs"."id" and h.state != 'scrapped')`;
 
 const listColumns = {
   id: jobs.id,

@@ -131,7 +131,7 @@ export type RevisionJobRow = { id: number; number: string; state: string; custom
 
 /** Jobs that chose the revision or cut a head with it. */
 export function jobsOfRevision(db: Db, revisionId: number): RevisionJobRow[] {
-  const cutsWith = sql<number>`(select count(*) from cuts c where c.job_id = ${jobs.id} and c.revision_id = ${revisionId})`;
+  const cutsWith = sql<number>`(select count(*) from cuts c where c.job_id = "jobs"."id" and c.revision_id = ${revisionId})`;
   return db
     .select({
       id: jobs.id,
@@ -139,7 +139,7 @@ export function jobsOfRevision(db: Db, revisionId: number): RevisionJobRow[] {
       state: jobs.state,
       customerName: customers.name,
       ports: sql<string>`trim((case when ${jobs.intakeRevisionId} = ${revisionId} then 'intake ' else '' end) || (case when ${jobs.exhaustRevisionId} = ${revisionId} then 'exhaust' else '' end))`,
-      heads: sql<number>`(select count(*) from heads h where h.job_id = ${jobs.id})`,
+      heads: sql<number>`(select count(*) from heads h where h.job_id = "jobs"."id")`,
       cutsWithRevision: cutsWith,
     })
     .from(jobs)
@@ -160,7 +160,7 @@ export function traceableRevisions(db: Db): RevisionOption[] {
       state: revisions.state,
       castingNumber: headTypes.castingNumber,
       port: programs.port,
-      cuts: sql<number>`(select count(*) from cuts c where c.revision_id = ${revisions.id})`,
+      cuts: sql<number>`(select count(*) from cuts c where c.revision_id = "revisions"."id")`,
     })
     .from(revisions)
     .innerJoin(programs, eq(programs.id, revisions.programId))
