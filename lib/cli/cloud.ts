@@ -14,6 +14,7 @@ import {
   writeStlAscii,
   writeStlBinary,
   writeXyz,
+  type PortKind,
   type PortReport,
   type ReadFormat,
   type Vec3,
@@ -104,15 +105,17 @@ async function analyze(args: string[], io: CliIo): Promise<number> {
   if (positionals.length !== 1) throw new UsageError("analyze needs exactly one FILE");
   const port = values.port;
   if (port !== undefined && port !== "intake" && port !== "exhaust") throw new UsageError(`--port must be intake or exhaust`);
+  const portKind: PortKind | undefined = port;
   const opts = { units: units(values.units), format: format(values.format) };
-  const cloud = await readPointCloudFile(positionals[0], opts);
-  const { report } = analyzePort(cloud, {
+  const analyzeOptions = {
     stepMm: num(values["step-mm"], "step-mm"),
     valveDiameterMm: num(values["valve-mm"], "valve-mm"),
     entry: point(values.entry, "entry"),
     exit: point(values.exit, "exit"),
-    portKind: port,
-  });
+    portKind,
+  };
+  const cloud = await readPointCloudFile(positionals[0], opts);
+  const { report } = analyzePort(cloud, analyzeOptions);
   if (values.json) io.out(JSON.stringify(values.outlines ? report : withoutOutlines(report)));
   else printReport(report, io);
   return 0;
@@ -122,9 +125,10 @@ async function compare(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({ args, allowPositionals: true, options: common });
   if (positionals.length !== 2) throw new UsageError("compare needs two files, A (reference) and B");
   const opts = { units: units(values.units), format: format(values.format) };
+  const compareOptions = { stepMm: num(values["step-mm"], "step-mm"), valveDiameterMm: num(values["valve-mm"], "valve-mm") };
   const a = await readPointCloudFile(positionals[0], opts);
   const b = await readPointCloudFile(positionals[1], opts);
-  const c = compareScans(a, b, { stepMm: num(values["step-mm"], "step-mm"), valveDiameterMm: num(values["valve-mm"], "valve-mm") });
+  const c = compareScans(a, b, compareOptions);
   if (values.json) {
     io.out(JSON.stringify(c));
     return 0;
@@ -141,9 +145,12 @@ async function compare(args: string[], io: CliIo): Promise<number> {
 async function preview(args: string[], io: CliIo): Promise<number> {
   const { values, positionals } = parseArgs({ args, allowPositionals: true, options: { ...common, "max-points": { type: "string" } } });
   if (positionals.length !== 2) throw new UsageError("preview needs FILE and OUT");
-  const cloud = await readPointCloudFile(positionals[0], { units: units(values.units), format: format(values.format) });
-  const { report, pointStation } = analyzePort(cloud, { stepMm: num(values["step-mm"], "step-mm") });
-  const p = buildPreviewCloud(cloud, pointStation, { maxPoints: num(values["max-points"], "max-points"), stationCount: report.sections.length ? Math.round(report.centerline.lengthMm / report.stepMm) + 1 : 0 });
+  const readOptions = { units: units(values.units), format: format(values.format) };
+  const stepMm = num(values["step-mm"], "step-mm");
+  const maxPoints = num(values["max-points"], "max-points");
+  const cloud = await readPointCloudFile(positionals[0], readOptions);
+  const { report, pointStation } = analyzePort(cloud, { stepMm });
+  const p = buildPreviewCloud(cloud, pointStation, { maxPoints, stationCount: report.sections.length ? Math.round(report.centerline.lengthMm / report.stepMm) + 1 : 0 });
   const blob = encodePreviewCloud(p);
   await writeFile(positionals[1], blob);
   const out = { out: positionals[1], bytes: blob.length, points: p.count, sourcePoints: p.sourceCount, voxelMm: p.voxelMm, stationCount: p.stationCount };
