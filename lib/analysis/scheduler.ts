@@ -13,8 +13,14 @@ import { storage } from "../storage";
 import { sweepAbandonedUploads } from "../uploads/sessions";
 import { claimNext, markFailed, requeueInterrupted } from "./queue";
 
-/** Two shared cores: one analysis at a time leaves the other for the web server. */
-export const MAX_CONCURRENT = Math.max(1, Number(process.env.PORTOLAN_ANALYSIS_CONCURRENCY ?? 1) || 1);
+/**
+ * Two shared cores: one analysis at a time leaves the other for the web server.
+ * PORTOLAN_ANALYSIS_CONCURRENCY overrides it; 0 leaves the queue to another runner (tests, CLI).
+ */
+export function maxConcurrent(): number {
+  const n = Number(process.env.PORTOLAN_ANALYSIS_CONCURRENCY ?? 1);
+  return Number.isInteger(n) && n >= 0 ? Math.min(n, 8) : 1;
+}
 
 type SchedulerState = { started: boolean; running: Map<number, number>; projectRoot: string };
 
@@ -43,7 +49,7 @@ function startOnce(db: Db) {
 export function kickAnalyses(db: Db = defaultDb()): void {
   startOnce(db);
   const s = state();
-  while (s.running.size < MAX_CONCURRENT) {
+  while (s.running.size < maxConcurrent()) {
     const id = claimNext(db);
     if (id === null) return;
     spawnRunner(db, id);
