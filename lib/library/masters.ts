@@ -79,7 +79,9 @@ export function updateMaster(db: Db, actor: Actor | null, id: number, input: unk
         const before = tx.select().from(masterHeads).where(eq(masterHeads.id, id)).get();
         if (!before) throw new AppError("not_found", "That master head was not found.");
         if (before.stage === "retired") throw new AppError("conflict", "A retired master is kept as it was.");
-        const row = tx.update(masterHeads).set({ ...rowValues(values), updatedAt: now }).where(eq(masterHeads.id, id)).returning().get();
+        // An edit that does not mention the porter keeps the one on record (null clears it).
+        const porterId = values.porterId === undefined ? before.porterId : values.porterId;
+        const row = tx.update(masterHeads).set({ ...rowValues(values), porterId, updatedAt: now }).where(eq(masterHeads.id, id)).returning().get();
         recordAudit(tx, { actor: who, action: "master.update", entity: "master_head", entityId: id, before, after: row }, now);
         return row;
       }),
