@@ -29,6 +29,8 @@ export class PreviewDecimator {
   private readonly acc = new Float64Array(1);
   private hasPending = false;
   private readonly pend = new Float64Array(3);
+  /** The last kept vertex, in full precision. */
+  private readonly anchor = new Float64Array(3);
   private pf = 0;
   private pl = 0;
 
@@ -42,21 +44,12 @@ export class PreviewDecimator {
   /** Adds the end point src[0..2] of a segment whose kind is `flags` (see preview.ts). */
   add(src: Float64Array, flags: number, lineNo: number): void {
     const pend = this.pend;
-    if (!this.hasPending) {
-      if (this.count === 0) {
-        this.commit(src, flags | PREVIEW_BREAK, lineNo);
-        return;
-      }
-      this.setPending(src, flags, lineNo);
-      return;
-    }
-    if (flags === this.pf && (flags & PREVIEW_BREAK) === 0) {
+    if (this.hasPending && flags === this.pf && (flags & PREVIEW_BREAK) === 0) {
       // distance from the pending point P to the segment anchor A – new point N
-      const xyz = this.xyz;
-      const a = 3 * (this.count - 1);
-      const ax = xyz[a];
-      const ay = xyz[a + 1];
-      const az = xyz[a + 2];
+      const anc = this.anchor;
+      const ax = anc[0];
+      const ay = anc[1];
+      const az = anc[2];
       const abx = src[0] - ax;
       const aby = src[1] - ay;
       const abz = src[2] - az;
@@ -73,11 +66,23 @@ export class PreviewDecimator {
       const total = this.acc[0] + Math.sqrt(dx * dx + dy * dy + dz * dz);
       if (total <= this.tolerance) {
         this.acc[0] = total;
-        this.setPending(src, flags, lineNo);
+        pend[0] = src[0];
+        pend[1] = src[1];
+        pend[2] = src[2];
+        this.pl = lineNo;
         return;
       }
     }
-    this.commit(pend, this.pf, this.pl);
+    this.addSlow(src, flags, lineNo);
+  }
+
+  private addSlow(src: Float64Array, flags: number, lineNo: number): void {
+    if (this.hasPending) {
+      this.commit(this.pend, this.pf, this.pl);
+    } else if (this.count === 0) {
+      this.commit(src, flags | PREVIEW_BREAK, lineNo);
+      return;
+    }
     this.setPending(src, flags, lineNo);
   }
 
@@ -112,6 +117,9 @@ export class PreviewDecimator {
     this.xyz[3 * k] = src[0];
     this.xyz[3 * k + 1] = src[1];
     this.xyz[3 * k + 2] = src[2];
+    this.anchor[0] = src[0];
+    this.anchor[1] = src[1];
+    this.anchor[2] = src[2];
     this.flag[k] = f;
     this.line[k] = l;
     this.acc[0] = 0;
@@ -127,6 +135,10 @@ export class PreviewDecimator {
     }
     while (this.count > target) this.thin();
     this.acc[0] = 0;
+    const last = 3 * (this.count - 1);
+    this.anchor[0] = this.xyz[last];
+    this.anchor[1] = this.xyz[last + 1];
+    this.anchor[2] = this.xyz[last + 2];
   }
 
   private refilter(): void {

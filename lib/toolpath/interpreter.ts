@@ -445,70 +445,143 @@ export class Interpreter implements BlockSink {
   }
 
   /**
-   * G0/G1 in work coordinates: the bulk of every program, so the axis words are read unrolled
-   * (same meaning as readTargets + namedAxes + straight).
+   * G0/G1 in work coordinates: the bulk of every program. The axis words are read unrolled
+   * into locals; when every named axis is known before and after, the move is measured right
+   * here (same rules as linearMove, which handles everything else).
    */
   private plainStraight(w: BlockWords, line: number, rapid: boolean): void {
     const values = w.values;
     const present = w.present;
     const pos = this.pos;
-    const tgt = this.target;
     const scale = this.inch ? MM_PER_INCH : 1;
     const inc = this.incremental;
+    const p0 = pos[0];
+    const p1 = pos[1];
+    const p2 = pos[2];
+    const p3 = pos[3];
+    const p4 = pos[4];
+    const p5 = pos[5];
+    let x = p0;
+    let y = p1;
+    let z = p2;
+    let a = p3;
+    let b = p4;
+    let c = p5;
     let named = 0;
-    let known = this.known;
     if ((present & BIT_X) !== 0) {
       named |= 1;
-      const v = values[L_X] * scale;
-      if (inc) tgt[0] = pos[0] + v;
-      else {
-        tgt[0] = v;
-        known |= 1;
-      }
-    } else tgt[0] = pos[0];
+      x = inc ? p0 + values[L_X] * scale : values[L_X] * scale;
+    }
     if ((present & BIT_Y) !== 0) {
       named |= 2;
-      const v = values[L_Y] * scale;
-      if (inc) tgt[1] = pos[1] + v;
-      else {
-        tgt[1] = v;
-        known |= 2;
-      }
-    } else tgt[1] = pos[1];
+      y = inc ? p1 + values[L_Y] * scale : values[L_Y] * scale;
+    }
     if ((present & BIT_Z) !== 0) {
       named |= 4;
-      const v = values[L_Z] * scale;
-      if (inc) tgt[2] = pos[2] + v;
-      else {
-        tgt[2] = v;
-        known |= 4;
-      }
-    } else tgt[2] = pos[2];
+      z = inc ? p2 + values[L_Z] * scale : values[L_Z] * scale;
+    }
     if ((present & BIT_A) !== 0) {
       named |= 8;
-      if (inc) tgt[3] = pos[3] + values[L_A];
-      else {
-        tgt[3] = values[L_A];
-        known |= 8;
-      }
-    } else tgt[3] = pos[3];
+      a = inc ? p3 + values[L_A] : values[L_A];
+    }
     if ((present & BIT_B) !== 0) {
       named |= 16;
-      if (inc) tgt[4] = pos[4] + values[L_B];
-      else {
-        tgt[4] = values[L_B];
-        known |= 16;
-      }
-    } else tgt[4] = pos[4];
+      b = inc ? p4 + values[L_B] : values[L_B];
+    }
     if ((present & BIT_C) !== 0) {
       named |= 32;
-      if (inc) tgt[5] = pos[5] + values[L_C];
-      else {
-        tgt[5] = values[L_C];
-        known |= 32;
-      }
-    } else tgt[5] = pos[5];
-    this.linearMove(named, known, line, rapid, false, (present & BIT_F) !== 0);
+      c = inc ? p5 + values[L_C] : values[L_C];
+    }
+    const known = this.known;
+    if ((named & ~known) !== 0 || (named & ~this.usedAxes) !== 0 || !this.unitsSet || !this.previewAtPosition) {
+      // the general path: unknown positions, first use of an axis, units or preview to settle
+      const tgt = this.target;
+      tgt[0] = x;
+      tgt[1] = y;
+      tgt[2] = z;
+      tgt[3] = a;
+      tgt[4] = b;
+      tgt[5] = c;
+      this.linearMove(named, inc ? known : known | named, line, rapid, false, (present & BIT_F) !== 0);
+      return;
+    }
+    this.movedThisBlock = true;
+    const dx = x - p0;
+    const dy = y - p1;
+    const dz = z - p2;
+    const xyz = Math.sqrt(dx * dx + dy * dy + dz * dz);
+    const sums = this.sums;
+    let rot = 0;
+    if ((named & 56) !== 0) {
+      const da = a - p3;
+      const db = b - p4;
+      const dc = c - p5;
+      sums[SUM_ROTARY_A] += Math.abs(da);
+      sums[SUM_ROTARY_A + 1] += Math.abs(db);
+      sums[SUM_ROTARY_A + 2] += Math.abs(dc);
+      rot = Math.sqrt(da * da + db * db + dc * dc);
+    }
+    if (rapid) {
+      sums[SUM_RAPID_MM] += xyz;
+      const r = this.rapidRate;
+      let t = Math.abs(dx) / r[0];
+      let u = Math.abs(dy) / r[1];
+      if (u > t) t = u;
+      u = Math.abs(dz) / r[2];
+      if (u > t) t = u;
+      u = Math.abs(a - p3) / r[3];
+      if (u > t) t = u;
+      u = Math.abs(b - p4) / r[4];
+      if (u > t) t = u;
+      u = Math.abs(c - p5) / r[5];
+      if (u > t) t = u;
+      sums[SUM_RAPID_MIN] += t;
+      this.tools.touch(line);
+    } else {
+      this.move[MOVE_XYZ] = xyz;
+      this.move[MOVE_ROT] = rot;
+      this.cut(line, (present & BIT_F) !== 0);
+    }
+    // extent and limits of the named axes
+    const min = this.min;
+    const max = this.max;
+    const lo = this.alarmLo;
+    const hi = this.alarmHi;
+    if ((named & 1) !== 0) {
+      if (x < min[0]) { min[0] = x; this.minLine[0] = line; }
+      if (x > max[0]) { max[0] = x; this.maxLine[0] = line; }
+      if (x < lo[0] || x > hi[0]) this.limits.checkAxis(0, x, line, false);
+    }
+    if ((named & 2) !== 0) {
+      if (y < min[1]) { min[1] = y; this.minLine[1] = line; }
+      if (y > max[1]) { max[1] = y; this.maxLine[1] = line; }
+      if (y < lo[1] || y > hi[1]) this.limits.checkAxis(1, y, line, false);
+    }
+    if ((named & 4) !== 0) {
+      if (z < min[2]) { min[2] = z; this.minLine[2] = line; }
+      if (z > max[2]) { max[2] = z; this.maxLine[2] = line; }
+      if (z < lo[2] || z > hi[2]) this.limits.checkAxis(2, z, line, false);
+    }
+    if ((named & 56) !== 0) {
+      const tgt = this.target;
+      tgt[3] = a;
+      tgt[4] = b;
+      tgt[5] = c;
+      this.extendTo(named & 56, line, false);
+    }
+    pos[0] = x;
+    pos[1] = y;
+    pos[2] = z;
+    pos[3] = a;
+    pos[4] = b;
+    pos[5] = c;
+    if ((known & XYZ_MASK) === XYZ_MASK && (dx !== 0 || dy !== 0 || dz !== 0)) {
+      const tgt = this.target;
+      tgt[0] = x;
+      tgt[1] = y;
+      tgt[2] = z;
+      this.preview.add(tgt, this.toolBits | (rapid ? PREVIEW_RAPID : 0), line);
+    }
   }
 
   /** Fills `target` and returns the known-mask after the move, for axis words read as work coordinates. */
