@@ -20,7 +20,10 @@ export const NAV: NavGroup[] = [
   },
   {
     label: "Records",
-    items: [{ href: "/audit", label: "Audit log", roles: ["auditor", "admin", "lead"] }],
+    items: [
+      { href: "/flow-tests", label: "Flow tests", roles: ALL },
+      { href: "/audit", label: "Audit log", roles: ["auditor", "admin", "lead"] },
+    ],
   },
   {
     label: "Administration",
