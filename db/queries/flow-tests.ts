@@ -314,3 +314,42 @@ export function flowSubjectOptions(db: Db, headTypeId?: number): SubjectOptions 
     .all();
   return { headTypes: types, masters, revisions: revs, heads: headRows, operators };
 }
+
+/** Names of what a filtered list is about ("revision Street intake · rev B"), for the page heading. */
+export function filterLabels(db: Db, filters: FlowTestFilters): string[] {
+  const out: string[] = [];
+  if (filters.headTypeId) {
+    const t = db.select({ c: headTypes.castingNumber }).from(headTypes).where(eq(headTypes.id, filters.headTypeId)).get();
+    out.push(`casting ${t?.c ?? `#${filters.headTypeId}`}`);
+  }
+  if (filters.masterId) {
+    const m = db.select({ l: masterHeads.label }).from(masterHeads).where(eq(masterHeads.id, filters.masterId)).get();
+    out.push(`master ${m?.l ?? `#${filters.masterId}`}`);
+  }
+  if (filters.revisionId) {
+    const r = db.select({ l: revisionLabel }).from(revisions).innerJoin(programs, eq(programs.id, revisions.programId)).where(eq(revisions.id, filters.revisionId)).get();
+    out.push(`revision ${r?.l ?? `#${filters.revisionId}`}`);
+  }
+  if (filters.headId) {
+    const h = db.select({ s: heads.serial }).from(heads).where(eq(heads.id, filters.headId)).get();
+    out.push(`head ${h?.s ?? `#${filters.headId}`}`);
+  }
+  if (filters.subject) out.push(`subject ${filters.subject}`);
+  if (filters.port) out.push(`${filters.port} ports`);
+  return out;
+}
+
+/** The casting (and for a revision, the port) a linked record belongs to, to pre-fill a new test. */
+export function linkedHeadType(db: Db, link: { masterId?: number; revisionId?: number; headId?: number }): { headTypeId: number; port?: Port } | undefined {
+  if (link.revisionId) {
+    return db
+      .select({ headTypeId: programs.headTypeId, port: programs.port })
+      .from(revisions)
+      .innerJoin(programs, eq(programs.id, revisions.programId))
+      .where(eq(revisions.id, link.revisionId))
+      .get();
+  }
+  if (link.masterId) return db.select({ headTypeId: masterHeads.headTypeId }).from(masterHeads).where(eq(masterHeads.id, link.masterId)).get();
+  if (link.headId) return db.select({ headTypeId: heads.headTypeId }).from(heads).where(eq(heads.id, link.headId)).get();
+  return undefined;
+}

@@ -1,0 +1,95 @@
+"use client";
+
+/** Flow coefficient against L/D for one or several tests, on the valve-head or the curtain area. */
+import { useState } from "react";
+import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { fixed } from "@/lib/flowtests/words";
+import { styleFor } from "./palette";
+import { SeriesMarker, SeriesSwatch } from "./SeriesMarker";
+
+export type CdChartSeries = { label: string; points: Array<{ ld: number; cdValve: number; cdCurtain: number }> };
+
+const BASIS = {
+  cdValve: { label: "valve-head area π·D²/4", short: "Cd on valve area" },
+  cdCurtain: { label: "curtain area π·D·L", short: "Cd on curtain area" },
+} as const;
+
+export function CdChart({ series, height = 260 }: { series: CdChartSeries[]; height?: number }) {
+  const [basis, setBasis] = useState<keyof typeof BASIS>("cdValve");
+  const drawn = series.filter((s) => s.points.length > 0);
+  if (drawn.length === 0) return null;
+  return (
+    <figure className="flex flex-col gap-2" data-testid="cd-chart">
+      <div className="flex flex-wrap items-center justify-between gap-2">
+        <figcaption className="text-sm font-semibold text-ink">
+          Flow coefficient against L/D <span className="font-normal text-ink-soft">— on the {BASIS[basis].label}</span>
+        </figcaption>
+        <div role="radiogroup" aria-label="Reference area" className="flex gap-1 text-xs print:hidden">
+          {(Object.keys(BASIS) as Array<keyof typeof BASIS>).map((key) => (
+            <button
+              key={key}
+              type="button"
+              role="radio"
+              aria-checked={basis === key}
+              onClick={() => setBasis(key)}
+              className={`rounded border px-2 py-1 ${basis === key ? "border-copper bg-copper-wash font-semibold text-copper-deep" : "border-rule bg-card text-ink-soft"}`}
+            >
+              {BASIS[key].short}
+            </button>
+          ))}
+        </div>
+      </div>
+      {drawn.length > 1 && (
+        <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Series">
+          {drawn.map((s, i) => (
+            <li key={`${s.label}-${i}`} className="flex items-center gap-1.5">
+              <SeriesSwatch style={styleFor(i)} />
+              {s.label}
+            </li>
+          ))}
+        </ul>
+      )}
+      <div style={{ height }} className="w-full print:h-56">
+        <ResponsiveContainer width="100%" height="100%">
+          <LineChart margin={{ top: 8, right: 16, bottom: 22, left: 4 }}>
+            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
+            <XAxis
+              type="number"
+              dataKey="ld"
+              domain={[0, "auto"]}
+              tick={{ fontSize: 11, fill: "#57524b" }}
+              tickFormatter={(v: number) => fixed(v, 2)}
+              label={{ value: "L/D (lift over valve diameter)", position: "insideBottom", offset: -12, fontSize: 11, fill: "#57524b" }}
+              allowDuplicatedCategory={false}
+            />
+            <YAxis type="number" dataKey={basis} domain={[0, "auto"]} width={44} tick={{ fontSize: 11, fill: "#57524b" }} tickFormatter={(v: number) => fixed(v, 2)} />
+            {/* At L/D 0.25 the curtain area equals the valve-head area. */}
+            <ReferenceLine x={0.25} stroke="#8a8379" strokeDasharray="3 3" label={{ value: "L/D 0.25", fontSize: 10, fill: "#8a8379", position: "top" }} />
+            <Tooltip
+              formatter={(value) => [fixed(Number(value), 3)]}
+              labelFormatter={(label) => `L/D ${fixed(Number(label), 3)}`}
+              contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }}
+            />
+            {drawn.map((s, i) => {
+              const style = styleFor(i);
+              return (
+                <Line
+                  key={`${s.label}-${i}-${basis}`}
+                  data={s.points}
+                  dataKey={basis}
+                  name={s.label}
+                  stroke={style.stroke}
+                  strokeWidth={2}
+                  strokeDasharray={style.dash}
+                  dot={(props: { cx?: number; cy?: number; index?: number }) => <SeriesMarker key={`${i}-${props.index}`} cx={props.cx} cy={props.cy} style={style} />}
+                  isAnimationActive={false}
+                  type="monotone"
+                />
+              );
+            })}
+          </LineChart>
+        </ResponsiveContainer>
+      </div>
+    </figure>
+  );
+}
