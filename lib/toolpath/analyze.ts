@@ -231,7 +231,7 @@ export async function analyzeToolpathFile(path: string, options: AnalyzeOptions 
   let hasher: ParallelHasher | null = null;
   try {
     const size = (await handle.stat()).size;
-    hasher = size >= PARALLEL_HASH_MIN_BYTES ? new ParallelHasher(READ_BUFFER_BYTES, HASH_POOL_BUFFERS) : null;
+    hasher = size >= PARALLEL_HASH_MIN_BYTES ? startHasher() : null;
     const analyzer = new ToolpathAnalyzer(options, hasher !== null);
     const spare = hasher ? null : [new Uint8Array(READ_BUFFER_BYTES), new Uint8Array(READ_BUFFER_BYTES)];
     let flip = 0;
@@ -256,6 +256,15 @@ export async function analyzeToolpathFile(path: string, options: AnalyzeOptions 
     if (pending) await pending.catch(() => 0);
     await hasher?.close();
     await handle.close();
+  }
+}
+
+/** A second thread for the hash, or null where threads cannot start (the hash then runs inline). */
+function startHasher(): ParallelHasher | null {
+  try {
+    return new ParallelHasher(READ_BUFFER_BYTES, HASH_POOL_BUFFERS);
+  } catch {
+    return null;
   }
 }
 

@@ -128,44 +128,66 @@ export class PreviewDecimator {
   /** Frees room: coarser tolerance first; plain thinning only if kind changes alone fill the buffer. */
   private shrink(): void {
     const target = Math.floor(this.cap * REFILL_TARGET);
+    let factor = 2;
     for (let round = 0; round < 60 && this.count > target; round++) {
-      this.tolerance *= 2;
+      this.tolerance *= factor;
       this.errorBound += this.tolerance;
+      const before = this.count;
       this.refilter();
+      // a pass that freed little says the tolerance is far too fine: grow faster
+      factor = this.count > before * 0.9 ? 4 : 2;
     }
     while (this.count > target) this.thin();
     this.acc[0] = 0;
-    const last = 3 * (this.count - 1);
-    this.anchor[0] = this.xyz[last];
-    this.anchor[1] = this.xyz[last + 1];
-    this.anchor[2] = this.xyz[last + 2];
   }
 
+  /** One pass of the same filter over the kept vertices, compacting them in place. */
   private refilter(): void {
     const { xyz, flag, line } = this;
-    let w = 0; // last kept index (anchor)
+    const tol = this.tolerance;
+    const n = this.count;
+    let w = 0; // slot of the last kept vertex (the anchor)
     let accum = 0;
-    for (let r = 1; r < this.count - 1; r++) {
-      // r is the candidate to drop, r + 1 the next point
+    for (let r = 1; r < n - 1; r++) {
+      // r is the candidate to drop, r + 1 the next vertex
       const f = flag[r];
-      if (f === flag[r + 1] && (f & PREVIEW_BREAK) === 0 && (flag[r + 1] & PREVIEW_BREAK) === 0) {
-        const d = distanceToSegment(
-          xyz[3 * r], xyz[3 * r + 1], xyz[3 * r + 2],
-          xyz[3 * w], xyz[3 * w + 1], xyz[3 * w + 2],
-          xyz[3 * r + 3], xyz[3 * r + 4], xyz[3 * r + 5],
-        );
-        if (accum + d <= this.tolerance) {
+      const g = flag[r + 1];
+      if (f === g && (f & PREVIEW_BREAK) === 0) {
+        const ax = xyz[3 * w];
+        const ay = xyz[3 * w + 1];
+        const az = xyz[3 * w + 2];
+        const abx = xyz[3 * r + 3] - ax;
+        const aby = xyz[3 * r + 4] - ay;
+        const abz = xyz[3 * r + 5] - az;
+        const apx = xyz[3 * r] - ax;
+        const apy = xyz[3 * r + 1] - ay;
+        const apz = xyz[3 * r + 2] - az;
+        const len2 = abx * abx + aby * aby + abz * abz;
+        let t = len2 > 0 ? (apx * abx + apy * aby + apz * abz) / len2 : 0;
+        if (t < 0) t = 0;
+        else if (t > 1) t = 1;
+        const dx = apx - t * abx;
+        const dy = apy - t * aby;
+        const dz = apz - t * abz;
+        const d = Math.sqrt(dx * dx + dy * dy + dz * dz);
+        if (accum + d <= tol) {
           accum += d;
           continue;
         }
       }
       w++;
-      this.move(r, w);
+      if (w !== r) {
+        xyz[3 * w] = xyz[3 * r];
+        xyz[3 * w + 1] = xyz[3 * r + 1];
+        xyz[3 * w + 2] = xyz[3 * r + 2];
+        flag[w] = f;
+        line[w] = line[r];
+      }
       accum = 0;
     }
-    if (this.count > 1) {
+    if (n > 1) {
       w++;
-      this.move(this.count - 1, w);
+      this.move(n - 1, w);
     }
     this.count = w + 1;
   }

@@ -24,6 +24,8 @@ import { PREVIEW_BREAK, PREVIEW_MAX_TOOL_INDEX, PREVIEW_RAPID, PREVIEW_TOOL_SHIF
 import { ASSUMED_MACHINE } from "./profile";
 import type { BlockSink } from "./scanner";
 import {
+  MAX_LISTED_TOOLS,
+  OTHER_TOOLS,
   ToolLog,
   TOOL_FEED_HIGH,
   TOOL_FEED_LOW,
@@ -387,6 +389,9 @@ export class Interpreter implements BlockSink {
 
   private mount(number: number, line: number): ToolRecord {
     const record = this.tools.mount(number, line);
+    if (record.number === OTHER_TOOLS) {
+      this.log.once("too-many-tools", line, `more than ${MAX_LISTED_TOOLS} different tools: the rest are reported together as tool −1`);
+    }
     const index = Math.min(this.tools.indexOf(record), PREVIEW_MAX_TOOL_INDEX - 1);
     this.toolBits = index << PREVIEW_TOOL_SHIFT;
     return record;

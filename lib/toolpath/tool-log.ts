@@ -2,6 +2,9 @@
 import type { LineRange, ToolUsage } from "./types";
 
 const MAX_RANGES_PER_TOOL = 1000;
+/** Distinct tools listed one by one; any further ones share one record numbered −1. */
+export const MAX_LISTED_TOOLS = 1000;
+export const OTHER_TOOLS = -1;
 
 /** Slots of ToolRecord.stats (a typed array, so updates in the hot loop never box doubles). */
 export const TOOL_FEED_LOW = 0;
@@ -48,6 +51,10 @@ export class ToolLog {
   mount(number: number, line: number): ToolRecord {
     if (this.active?.current) this.active.current = null;
     let record = this.byNumber.get(number);
+    if (!record && this.order.length >= MAX_LISTED_TOOLS) {
+      number = OTHER_TOOLS;
+      record = this.byNumber.get(number);
+    }
     if (!record) {
       record = new ToolRecord(number);
       record.firstLine = line;

@@ -99,7 +99,8 @@ export type WarningCode =
   | "cut-before-tool-change"
   | "length-offset-mismatch"
   | "long-dwell"
-  | "negative-value";
+  | "negative-value"
+  | "too-many-tools";
 
 export type ViolationKind =
   | "travel"
@@ -131,7 +132,10 @@ export type ToolpathViolation = {
 export type LineRange = { from: number; to: number };
 
 export type ToolUsage = {
-  /** Tool number; 0 = whatever was in the spindle before the first tool change. */
+  /**
+   * Tool number; 0 = whatever was in the spindle before the first tool change; −1 = all tools
+   * after the first 1000 distinct ones (reported together, with a warning).
+   */
   number: number;
   /** Line spans during which this tool was in the spindle (first 1000 spans). */
   ranges: LineRange[];

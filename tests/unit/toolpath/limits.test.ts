@@ -160,3 +160,16 @@ describe("machine-referenced moves", () => {
     expect(r.violations.filter((v) => v.kind === "plate-envelope")).toEqual([]);
   });
 });
+
+describe("tool list", () => {
+  it("lists at most 1000 distinct tools and reports the rest together", () => {
+    const body = Array.from({ length: 1003 }, (_, i) => `T${i + 1} M6\nG1 X${i % 7} F500`);
+    const r = run(body, {});
+    expect(r.tools).toHaveLength(1001);
+    expect(r.tools[999].number).toBe(1000);
+    expect(r.tools[1000].number).toBe(-1);
+    expect(r.tools[1000].ranges.length).toBe(3); // tools 1001…1003 share the record
+    expect(r.toolChanges).toBe(1003);
+    expect(warningCodes(r)).toContain("too-many-tools");
+  });
+});
