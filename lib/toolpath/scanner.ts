@@ -79,7 +79,6 @@ export class BlockScanner {
   private tape = Tape.Unknown;
   private tapeOpenLine = 0;
   private reportedAfterEnd = false;
-  private lastLineHadNoEnd = false;
 
   constructor(
     private readonly sink: BlockSink,
@@ -124,7 +123,6 @@ export class BlockScanner {
   finish(): void {
     if (this.overflowing) {
       this.refuseLongLine();
-      this.lastLineHadNoEnd = true;
     } else if (this.carryLen > 0) {
       let blank = true;
       for (let i = 0; i < this.carryLen; i++) {
@@ -137,8 +135,8 @@ export class BlockScanner {
       this.carry[this.carryLen] = 10;
       const line = this.stats.lines + 1;
       this.scanRegion(this.carry, 0, this.carryLen + 1);
-      if (!blank) {
-        this.lastLineHadNoEnd = true;
+      // A missing final line end matters only if the program has not ended properly by then.
+      if (!blank && !this.sink.programEnded && this.tape !== Tape.Closed) {
         this.log.add("no-final-line-end", line, "the last line has no line end: the file may have been cut short");
       }
     }
@@ -152,10 +150,6 @@ export class BlockScanner {
   /** True when the program was delimited by a leading and a closing `%` line. */
   get tapeClosed(): boolean {
     return this.tape === Tape.Closed;
-  }
-
-  get endedWithoutLineEnd(): boolean {
-    return this.lastLineHadNoEnd;
   }
 
   private appendCarry(src: Uint8Array, from: number, to: number): void {

@@ -152,3 +152,10 @@ describe("files on disk", () => {
     expect(fromFile.report).toEqual(analyzeToolpathText(text).report);
   });
 });
+
+describe("a complete program without a final line end", () => {
+  it("is not reported as cut short when it ends with M30 or a closing %", () => {
+    expect(warningCodes(analyzeToolpathText([...GOOD, "M30"].join("\n")).report)).not.toContain("no-final-line-end");
+    expect(warningCodes(analyzeToolpathText(["%", ...GOOD, "M30", "%"].join("\n")).report)).toEqual([]);
+  });
+});
