@@ -567,12 +567,20 @@ export class Interpreter implements BlockSink {
       if (z > max[2]) { max[2] = z; this.maxLine[2] = line; }
       if (z < lo[2] || z > hi[2]) this.limits.checkAxis(2, z, line, false);
     }
-    if ((named & 56) !== 0) {
-      const tgt = this.target;
-      tgt[3] = a;
-      tgt[4] = b;
-      tgt[5] = c;
-      this.extendTo(named & 56, line, false);
+    if ((named & 8) !== 0) {
+      if (a < min[3]) { min[3] = a; this.minLine[3] = line; }
+      if (a > max[3]) { max[3] = a; this.maxLine[3] = line; }
+      if (a < lo[3] || a > hi[3]) this.limits.checkAxis(3, a, line, false);
+    }
+    if ((named & 16) !== 0) {
+      if (b < min[4]) { min[4] = b; this.minLine[4] = line; }
+      if (b > max[4]) { max[4] = b; this.maxLine[4] = line; }
+      if (b < lo[4] || b > hi[4]) this.limits.checkAxis(4, b, line, false);
+    }
+    if ((named & 32) !== 0) {
+      if (c < min[5]) { min[5] = c; this.minLine[5] = line; }
+      if (c > max[5]) { max[5] = c; this.maxLine[5] = line; }
+      if (c < lo[5] || c > hi[5]) this.limits.checkAxis(5, c, line, false);
     }
     pos[0] = x;
     pos[1] = y;
