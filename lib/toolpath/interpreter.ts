@@ -18,7 +18,7 @@ import {
   gName,
 } from "./block";
 import type { PreviewDecimator } from "./decimate";
-import { GGroup, MGroup, gGroup, mGroup, usesAxisWords } from "./gcodes";
+import { BlockPlan } from "./block-plan";
 import type { LimitChecker } from "./limits";
 import { PREVIEW_BREAK, PREVIEW_MAX_TOOL_INDEX, PREVIEW_RAPID, PREVIEW_TOOL_SHIFT } from "./preview";
 import { ASSUMED_MACHINE } from "./profile";
@@ -151,6 +151,7 @@ export class Interpreter implements BlockSink {
   private readonly maxFeedCheck: boolean;
   private readonly maxFeed: number;
   private readonly move = new Float64Array(2);
+  private readonly plan = new BlockPlan();
   private readonly arcPoint = new Float64Array(3);
 
   constructor(setup: InterpreterSetup) {
@@ -225,93 +226,22 @@ export class Interpreter implements BlockSink {
   // ------------------------------------------------------------------ full block
 
   private fullBlock(w: BlockWords, line: number): void {
-    // Sort the codes into their modal groups; two from one group make the line invalid.
-    let motion = -2;
-    let plane = -1;
-    let distance = -1;
-    let arcDistance = -1;
-    let feedMode = -1;
-    let units = -1;
-    let comp = -1;
-    let lengthOffset = -1;
-    let coord = -1;
-    let dwell = false;
-    let home = -1; // 280 or 300
-    let machineCoords = false;
-    let axisUser = -1;
-    let conflict = "";
-    let seen = 0; // bit per modal group
-    for (let i = 0; i < w.gCount; i++) {
-      const g = w.gCodes[i];
-      const group = gGroup(g);
-      if (group !== GGroup.NonModal && group !== GGroup.Unknown) {
-        if ((seen & (1 << group)) !== 0) conflict = `two G codes of modal group ${group} on one line`;
-        seen |= 1 << group;
-      }
-      switch (group) {
-        case GGroup.Motion: motion = g; break;
-        case GGroup.Plane: plane = (g - 170) / 10; break;
-        case GGroup.Distance: distance = g; break;
-        case GGroup.ArcDistance: arcDistance = g; break;
-        case GGroup.FeedMode: feedMode = g; break;
-        case GGroup.Units: units = g; break;
-        case GGroup.CutterComp: comp = g; break;
-        case GGroup.LengthOffset: lengthOffset = g; break;
-        case GGroup.CoordSystem: coord = g; break;
-        case GGroup.ReturnMode: case GGroup.PathMode: break;
-        case GGroup.NonModal:
-          if (usesAxisWords(g)) {
-            if (axisUser >= 0) conflict = `${gName(axisUser)} and ${gName(g)} on one line`;
-            axisUser = g;
-          }
-          if (g === 40) dwell = true;
-          else if (g === 280 || g === 300) home = g;
-          else if (g === 530) machineCoords = true;
-          else if (g === 100 || g === 920 || g === 921 || g === 922 || g === 923) {
-            this.log.add("unsupported-code", line, () => `${gName(g)} (offsets) is not applied; later positions may be shifted`);
-          }
-          break;
-        default:
-          this.log.add("unknown-code", line, () => `${gName(g)} is not an RS274/NGC code the analysis knows; ignored`);
-      }
-    }
-    if (axisUser >= 0 && motion >= 0 && motion !== 800 && (w.present & AXIS_WORDS) !== 0) {
-      conflict = `${gName(axisUser)} and ${gName(motion)} both use the axis words`;
-    }
-    let stop = -1;
-    let toolChange = false;
-    let spindle = -1;
-    let mSeen = 0;
-    for (let i = 0; i < w.mCount; i++) {
-      const m = w.mCodes[i];
-      const group = mGroup(m);
-      if (group === MGroup.Unknown) {
-        if (m === 98 || m === 99) {
-          this.log.add("subroutine-not-supported", line, () => `M${m} (subprogram call/return) is not run; later positions may be wrong`);
-        } else {
-          this.log.add("unknown-code", line, () => `M${m} is not an RS274/NGC code; assumed to have no effect on motion`);
-        }
-        continue;
-      }
-      if ((mSeen & (1 << group)) !== 0 && group !== MGroup.Coolant) conflict = `two M codes of modal group ${group} on one line`;
-      mSeen |= 1 << group;
-      if (group === MGroup.Stop) stop = m;
-      else if (group === MGroup.ToolChange) toolChange = true;
-      else if (group === MGroup.Spindle) spindle = m;
-    }
+    const plan = this.plan;
+    const conflict = plan.read(w, line, this.log);
     if (conflict) {
       this.log.add("modal-conflict", line, `${conflict}; line skipped (RS274/NGC §3.4)`);
       return;
     }
+    const { motion, plane, distance, arcDistance, feedMode, units, comp, lengthOffset, coord, stop, spindle } = plan;
 
     // ---- execute in the order of Table 8 ----
     if (feedMode >= 0) this.inverseTime = feedMode === 930;
     if (w.has(L_F)) this.setFeed(w.values[L_F], line);
     if (w.has(L_S)) this.setSpindleSpeed(w.values[L_S], line);
     if (w.has(L_T)) this.selectTool(w.values[L_T], line);
-    if (toolChange) this.changeTool(line);
+    if (plan.toolChange) this.changeTool(line);
     if (spindle >= 0) this.spindleOn = spindle !== 5;
-    if (dwell) this.dwell(w, line);
+    if (plan.dwell) this.dwell(w, line);
     if (plane >= 0) this.plane = plane;
     if (units >= 0) {
       this.inch = units === 200;
@@ -330,12 +260,12 @@ export class Interpreter implements BlockSink {
     if (arcDistance >= 0) this.arcCentresAbsolute = arcDistance === 901;
 
     this.movedThisBlock = false;
-    if (home >= 0) {
-      this.homeReturn(w, line, home === 300);
-    } else if (axisUser < 0) {
+    if (plan.home >= 0) {
+      this.homeReturn(w, line, plan.home === 300);
+    } else if (plan.axisUser < 0) {
       if (motion >= 0) this.motion = motion;
       if ((w.present & AXIS_WORDS) !== 0) {
-        if (machineCoords) this.machineMove(w, line);
+        if (plan.machineCoords) this.machineMove(w, line);
         else this.motionFromMode(w, line);
       } else if (motion === 20 || motion === 30) {
         this.log.add("malformed-block", line, "an arc needs an end point; line has no axis words");
