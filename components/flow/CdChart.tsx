@@ -3,6 +3,7 @@
 /** Flow coefficient against L/D for one or several tests, on the valve-head or the curtain area. */
 import { useState } from "react";
 import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { niceTicks } from "@/lib/flowtests/axis";
 import { fixed } from "@/lib/flowtests/words";
 import { styleFor } from "./palette";
 import { SeriesMarker, SeriesSwatch } from "./SeriesMarker";
@@ -18,6 +19,8 @@ export function CdChart({ series, height = 260 }: { series: CdChartSeries[]; hei
   const [basis, setBasis] = useState<keyof typeof BASIS>("cdValve");
   const drawn = series.filter((s) => s.points.length > 0);
   if (drawn.length === 0) return null;
+  const xTicks = niceTicks(Math.max(0.25, ...drawn.flatMap((s) => s.points.map((p) => p.ld))), 6);
+  const yTicks = niceTicks(Math.max(...drawn.flatMap((s) => s.points.map((p) => p[basis]))), 5);
   return (
     <figure className="flex flex-col gap-2" data-testid="cd-chart">
       <div className="flex flex-wrap items-center justify-between gap-2">
@@ -51,18 +54,19 @@ export function CdChart({ series, height = 260 }: { series: CdChartSeries[]; hei
       )}
       <div style={{ height }} className="w-full print:h-56">
         <ResponsiveContainer width="100%" height="100%">
-          <LineChart margin={{ top: 8, right: 16, bottom: 22, left: 4 }}>
+          <LineChart margin={{ top: 20, right: 16, bottom: 22, left: 4 }}>
             <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
             <XAxis
               type="number"
               dataKey="ld"
-              domain={[0, "auto"]}
+              domain={[0, xTicks[xTicks.length - 1]]}
+              ticks={xTicks}
               tick={{ fontSize: 11, fill: "#57524b" }}
               tickFormatter={(v: number) => fixed(v, 2)}
               label={{ value: "L/D (lift over valve diameter)", position: "insideBottom", offset: -12, fontSize: 11, fill: "#57524b" }}
               allowDuplicatedCategory={false}
             />
-            <YAxis type="number" dataKey={basis} domain={[0, "auto"]} width={44} tick={{ fontSize: 11, fill: "#57524b" }} tickFormatter={(v: number) => fixed(v, 2)} />
+            <YAxis type="number" dataKey={basis} domain={[0, yTicks[yTicks.length - 1]]} ticks={yTicks} width={44} tick={{ fontSize: 11, fill: "#57524b" }} tickFormatter={(v: number) => fixed(v, 2)} />
             {/* At L/D 0.25 the curtain area equals the valve-head area. */}
             <ReferenceLine x={0.25} stroke="#8a8379" strokeDasharray="3 3" label={{ value: "L/D 0.25", fontSize: 10, fill: "#8a8379", position: "top" }} />
             <Tooltip

@@ -6,6 +6,7 @@
  * in a table under the chart (a text alternative, and what a person copies from).
  */
 import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { niceTicks } from "@/lib/flowtests/axis";
 import { fixed } from "@/lib/flowtests/words";
 import { styleFor } from "./palette";
 import { SeriesMarker, SeriesSwatch } from "./SeriesMarker";
@@ -27,6 +28,8 @@ export function FlowChart({
   if (drawn.length === 0) {
     return <p className="rounded-md border border-dashed border-rule px-4 py-6 text-center text-sm text-ink-soft">No lift points to chart yet.</p>;
   }
+  const xTicks = niceTicks(Math.max(...drawn.flatMap((s) => s.points.map((p) => p.liftMm))));
+  const yTicks = niceTicks(Math.max(...drawn.flatMap((s) => s.points.map((p) => p.flowCfmAt28))));
   return (
     <figure className="flex flex-col gap-2" data-testid="flow-chart">
       <figcaption className="text-sm font-semibold text-ink">
@@ -47,7 +50,8 @@ export function FlowChart({
             <XAxis
               type="number"
               dataKey="liftMm"
-              domain={[0, "auto"]}
+              domain={[0, xTicks[xTicks.length - 1]]}
+              ticks={xTicks}
               tick={{ fontSize: 11, fill: "#57524b" }}
               label={{ value: "lift, mm", position: "insideBottom", offset: -12, fontSize: 11, fill: "#57524b" }}
               allowDuplicatedCategory={false}
@@ -55,7 +59,8 @@ export function FlowChart({
             <YAxis
               type="number"
               dataKey="flowCfmAt28"
-              domain={[0, "auto"]}
+              domain={[0, yTicks[yTicks.length - 1]]}
+              ticks={yTicks}
               width={48}
               tick={{ fontSize: 11, fill: "#57524b" }}
               label={{ value: "cfm @ 28″", angle: -90, position: "insideLeft", offset: 8, fontSize: 11, fill: "#57524b" }}

@@ -57,12 +57,15 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
   const num = (name: FieldPath<In>) => register(name, { setValueAs: numeric });
 
   const headTypeId = values.headTypeId;
+  // Castings and operators once; the masters, revisions and heads of the chosen casting as it changes.
+  const base = useQuery({ queryKey: ["flow-subjects", "all"], queryFn: () => fetchJson<SubjectOptions>("/api/flow-tests/subjects") });
   const subjects = useQuery({
     queryKey: ["flow-subjects", headTypeId ?? null],
-    queryFn: () => fetchJson<SubjectOptions>(`/api/flow-tests/subjects${headTypeId ? `?headTypeId=${headTypeId}` : ""}`),
+    queryFn: () => fetchJson<SubjectOptions>(`/api/flow-tests/subjects?headTypeId=${headTypeId}`),
+    enabled: !!headTypeId,
   });
   const options = subjects.data;
-  const headType = options?.headTypes.find((t) => t.id === headTypeId);
+  const headType = base.data?.headTypes.find((t) => t.id === headTypeId);
 
   // Fill the valve and seat from the casting until the person types their own.
   const filledFrom = useRef<string>("");
@@ -140,9 +143,10 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
       <Card title="What was tested">
         <div className="grid gap-4 md:grid-cols-2 xl:grid-cols-4">
           <Field label="Head type (casting)" htmlFor="ft-head-type" error={err("headTypeId")}>
-            <select id="ft-head-type" className={inputClass(!!errors.headTypeId)} {...register("headTypeId", { setValueAs: idValue })}>
-              <option value="">choose…</option>
-              {(options?.headTypes ?? []).map((t) => (
+            {/* Controlled: the options arrive after the first render, and the choice must still show. */}
+            <select id="ft-head-type" className={inputClass(!!errors.headTypeId)} {...register("headTypeId", { setValueAs: idValue })} value={values.headTypeId ?? ""}>
+              <option value="">{base.isPending ? "loading…" : base.isError ? "could not load the castings" : "choose…"}</option>
+              {(base.data?.headTypes ?? []).map((t) => (
                 <option key={t.id} value={t.id}>
                   {t.castingNumber} — {t.engineFamily}
                 </option>
@@ -197,6 +201,7 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
                 <select
                   id="ft-link"
                   key={link}
+                  value={(values[link] as number | null | undefined) ?? ""}
                   className={inputClass(!!err(link))}
                   {...register(link, {
                     setValueAs: idValue,
@@ -223,9 +228,9 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
             <input id="ft-date" type="date" className={inputClass(!!errors.testedOn)} {...register("testedOn")} />
           </Field>
           <Field label="Operator" htmlFor="ft-operator" error={err("operatorId")} hint="who ran the bench">
-            <select id="ft-operator" className={inputClass(!!errors.operatorId)} {...register("operatorId", { setValueAs: idValue })}>
+            <select id="ft-operator" className={inputClass(!!errors.operatorId)} {...register("operatorId", { setValueAs: idValue })} value={values.operatorId ?? ""}>
               <option value="">the person recording</option>
-              {(options?.operators ?? []).map((o) => (
+              {(base.data?.operators ?? []).map((o) => (
                 <option key={o.id} value={o.id}>
                   {o.name}
                 </option>

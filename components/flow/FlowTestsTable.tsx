@@ -50,8 +50,8 @@ export function FlowTestsTable({ filters }: { filters: FlowListFilters }) {
           </Link>
         ),
       },
-      { accessorKey: "testedOn", header: "Tested on", cell: (c) => <span className="font-mono">{c.row.original.testedOn}</span> },
-      { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="font-mono">{c.row.original.castingNumber ?? "—"}</span> },
+      { accessorKey: "testedOn", header: "Tested on", cell: (c) => <span className="whitespace-nowrap font-mono">{c.row.original.testedOn}</span> },
+      { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="whitespace-nowrap font-mono">{c.row.original.castingNumber ?? "—"}</span> },
       {
         accessorKey: "subjectLabel",
         header: "What was tested",
@@ -74,7 +74,7 @@ export function FlowTestsTable({ filters }: { filters: FlowListFilters }) {
           return (
             <span>
               {PORT_WORDS[r.port]}
-              {place && <span className="block text-xs text-ink-soft">{place}</span>}
+              {place && <span className="block whitespace-nowrap text-xs text-ink-soft">{place}</span>}
             </span>
           );
         },
@@ -91,7 +91,7 @@ export function FlowTestsTable({ filters }: { filters: FlowListFilters }) {
           return r.peakFlowCfmAt28 == null ? (
             <span className="text-bad">not computable</span>
           ) : (
-            <span className="font-mono font-semibold">
+            <span className="whitespace-nowrap font-mono font-semibold">
               {fixed(r.peakFlowCfmAt28, 1)}
               <span className="block text-xs font-normal text-ink-soft">at {fixed(r.peakFlowLiftMm, 2)} mm</span>
             </span>

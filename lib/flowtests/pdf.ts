@@ -6,7 +6,10 @@
 import PDFDocument from "pdfkit";
 import type { FlowTestDetail } from "@/db/queries/flow-tests";
 import type { FlowTestResult } from "@/lib/flow";
+import { niceStep } from "./axis";
 import { flowSheet, type SheetFact } from "./sheet";
+
+export { niceStep };
 import { fixed } from "./words";
 
 const INK = "#23211f";
@@ -50,16 +53,6 @@ export function pdfText(text: string): string {
     else out += "?";
   }
   return out;
-}
-
-/** A round step for about `count` axis divisions. */
-export function niceStep(range: number, count = 5): number {
-  if (!(range > 0)) return 1;
-  const raw = range / count;
-  const magnitude = 10 ** Math.floor(Math.log10(raw));
-  const norm = raw / magnitude;
-  const nice = norm <= 1 ? 1 : norm <= 2 ? 2 : norm <= 2.5 ? 2.5 : norm <= 5 ? 5 : 10;
-  return nice * magnitude;
 }
 
 type Doc = InstanceType<typeof PDFDocument>;

@@ -93,3 +93,13 @@ describe("flow sheet PDF", () => {
     expect(power.value).toBe(`about ${(0.257 * c.result.summary.peakFlowCfmAt28 * 8).toFixed(0)} hp for 8 cylinders`);
   });
 });
+
+describe("chart axes", () => {
+  it("end on the first round value at or above the data", async () => {
+    const { niceTicks } = await import("@/lib/flowtests/axis");
+    expect(niceTicks(247.8)).toEqual([0, 50, 100, 150, 200, 250]);
+    expect(niceTicks(15.24)).toEqual([0, 5, 10, 15, 20]);
+    expect(niceTicks(0.297, 6)).toEqual([0, 0.05, 0.1, 0.15, 0.2, 0.25, 0.3]);
+    expect(niceTicks(250)).toEqual([0, 50, 100, 150, 200, 250]);
+  });
+});

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import { notFound } from "next/navigation";
 import { ComputedTable } from "@/components/flow/ComputedTable";
-import { Facts } from "@/components/flow/Facts";
+import { FactTiles, Facts } from "@/components/flow/Facts";
 import { FlowCaution, FlowConventions } from "@/components/flow/FlowConventions";
 import { FlowSheetActions } from "@/components/flow/FlowSheetActions";
 import { OverlayPanel } from "@/components/flow/OverlayPanel";
@@ -67,17 +67,17 @@ export default async function FlowTestPage({ params }: { params: Promise<{ id: s
         )}
       </div>
 
-      <div className="grid gap-4 lg:grid-cols-3 print:grid-cols-3 print:gap-2">
+      <div className="grid gap-4 lg:grid-cols-2 print:grid-cols-2 print:gap-2">
         <Card title="What was tested">
           <Facts items={sheet.tested} />
         </Card>
         <Card title="Bench, air and valve">
           <Facts items={sheet.bench} />
         </Card>
-        <Card title="Results at 28 inH₂O">
-          <Facts items={sheet.summary} testId="flow-summary" />
-        </Card>
       </div>
+      <Card title="Results, corrected to 28 inH₂O and standard air">
+        <FactTiles items={sheet.summary} testId="flow-summary" />
+      </Card>
 
       {sheet.warnings.length > 0 && (
         <Caution title="Check these">
