@@ -12,7 +12,13 @@ const ALL: readonly Role[] = ["porter", "machinist", "lead", "auditor", "admin"]
 export const NAV: NavGroup[] = [
   {
     label: "Shop",
-    items: [{ href: "/", label: "Overview", roles: ALL }],
+    items: [
+      { href: "/", label: "Overview", roles: ALL },
+      { href: "/jobs", label: "Jobs", roles: ALL },
+      { href: "/schedule", label: "Schedule", roles: ALL },
+      { href: "/heads", label: "Heads", roles: ALL },
+      { href: "/customers", label: "Customers", roles: ALL },
+    ],
   },
   {
     label: "Library",
@@ -22,12 +28,16 @@ export const NAV: NavGroup[] = [
     label: "Records",
     items: [
       { href: "/flow-tests", label: "Flow tests", roles: ALL },
+      { href: "/trace", label: "Trace and recall", roles: ALL },
       { href: "/audit", label: "Audit log", roles: ["auditor", "admin", "lead"] },
     ],
   },
   {
     label: "Administration",
-    items: [{ href: "/admin/users", label: "Users and invitations", roles: ["admin"] }],
+    items: [
+      { href: "/admin/users", label: "Users and invitations", roles: ["admin"] },
+      { href: "/admin/machine-tokens", label: "Machine tokens", roles: ["admin"] },
+    ],
   },
 ];
 

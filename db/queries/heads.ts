@@ -1,7 +1,7 @@
 /** Reads for production heads: the list across jobs and one head with its job and cuts. */
-import { and, count, eq, like, or, sql, type SQL } from "drizzle-orm";
+import { and, count, eq, inArray, like, or, sql, type SQL } from "drizzle-orm";
 import type { Db } from "../client";
-import { customers, headTypes, heads, jobs } from "../schema";
+import { customers, flowTests, headTypes, heads, jobs } from "../schema";
 import { pageOf, type Page, type TableQuery } from "@/lib/paging";
 import { likePattern, offsetFor, orderFor } from "./paging";
 
@@ -104,4 +104,16 @@ export function getHeadBySerial(db: Db, serial: string): HeadRow | null {
 /** Heads of one job, in serial order, for the job page's cut log. */
 export function headsOfJob(db: Db, jobId: number): HeadRow[] {
   return base(db).where(eq(heads.jobId, jobId)).orderBy(heads.serial).all();
+}
+
+/** Flow tests recorded on these heads, for linking a cut to its post-cut test. */
+export function flowTestsOfHeads(db: Db, headIds: number[]) {
+  if (headIds.length === 0) return [];
+  return db
+    .select({ id: flowTests.id, headId: flowTests.headId, port: flowTests.port, testedOn: flowTests.testedOn })
+    .from(flowTests)
+    .where(inArray(flowTests.headId, headIds))
+    .orderBy(flowTests.testedOn)
+    .all()
+    .map((t) => ({ id: t.id, headId: t.headId!, label: `#${t.id} ${t.port}, ${t.testedOn}` }));
 }

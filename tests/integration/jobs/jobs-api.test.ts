@@ -319,7 +319,7 @@ describe("shipping", () => {
     expect(shipped.body.notice.sent).toBe(true);
     expect(db.select().from(heads).where(eq(heads.id, head.id)).get()!.state).toBe("shipped");
 
-    const caught = await mail.waitFor((m) => m.subject.includes(`Job ${job.number} has shipped`));
+    const caught = await mail.waitFor((m) => (m.subject ?? "").includes(`Job ${job.number} has shipped`));
     expect(caught.envelopeTo).toEqual(["odile@ferrous-lane.invalid"]);
     expect(caught.text).toContain(`Head SN-${job.id}-S1`);
     expect(caught.text).toContain(`Intake ports cut with ${shop.intakeProgram.name} A`);
