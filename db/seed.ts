@@ -8,6 +8,7 @@ import { count } from "drizzle-orm";
 import { db as defaultDb, type Db } from "./client";
 import { users } from "./schema";
 import { seedFlow } from "./seed/flow";
+import { seedJobs } from "./seed/jobs";
 import { seedLibrary } from "./seed/library";
 import { seedPeople } from "./seed/people";
 
@@ -16,6 +17,7 @@ export type SeedContext = { people: ReturnType<typeof seedPeople>; library: Retu
 /** Later parts of the demo (programs, jobs, flow tests) hook in here, in order. */
 export const seedSteps: Array<(db: Db, ctx: SeedContext) => Promise<void> | void> = [
   seedFlow,
+  seedJobs,
 ];
 
 export async function seedDemo(db: Db = defaultDb()): Promise<boolean> {
