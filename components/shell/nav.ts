@@ -14,6 +14,7 @@ export const NAV: NavGroup[] = [
     label: "Shop",
     items: [
       { href: "/", label: "Overview", roles: ALL },
+      { href: "/handoff", label: "Handoff", roles: ALL },
       { href: "/jobs", label: "Jobs", roles: ALL },
       { href: "/schedule", label: "Schedule", roles: ALL },
       { href: "/heads", label: "Heads", roles: ALL },
@@ -22,7 +23,14 @@ export const NAV: NavGroup[] = [
   },
   {
     label: "Library",
-    items: [{ href: "/head-types", label: "Head types", roles: ALL }],
+    items: [
+      { href: "/head-types", label: "Head types", roles: ALL },
+      { href: "/masters", label: "Master heads", roles: ALL },
+      { href: "/plates", label: "Fixture plates", roles: ALL },
+      { href: "/machines", label: "Machines", roles: ALL },
+      { href: "/scans", label: "Scans", roles: ALL },
+      { href: "/programs", label: "Programs", roles: ALL },
+    ],
   },
   {
     label: "Records",
