@@ -1,12 +1,13 @@
 "use client";
 
+import Link from "next/link";
 import { DataTable, type Columns } from "../table/DataTable";
 import type { HeadTypeRow } from "@/db/queries/head-types";
 
 const mm = (v: number | null) => (v == null ? "—" : v.toFixed(1));
 
 const columns: Columns<HeadTypeRow> = [
-  { accessorKey: "castingNumber", header: "Casting number", cell: (c) => <span className="font-mono font-semibold">{c.getValue() as string}</span> },
+  { accessorKey: "castingNumber", header: "Casting number", cell: (c) => <Link href={`/head-types/${c.row.original.id}`} className="font-mono font-semibold text-copper-deep hover:underline">{c.getValue() as string}</Link> },
   { accessorKey: "engineFamily", header: "Engine family" },
   { accessorKey: "cylinders", header: "Cyl." },
   { accessorKey: "boreMm", header: "Bore mm", cell: (c) => mm(c.getValue() as number) },

@@ -1,7 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { machineSchema } from "@/lib/library/schema";
 import { Button } from "../ui/Button";
@@ -19,7 +19,7 @@ export function MachineForm({ id, initial }: { id?: number; initial?: Partial<In
     done: (r) => `Machine ${r.name} saved.`,
     next: (r) => `/machines/${r.id}`,
   });
-  const axes = (form.watch("axes") ?? "").toUpperCase();
+  const axes = (useWatch({ control: form.control, name: "axes" }) ?? "").toUpperCase();
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Machine">
       <FormSection title="Machine">

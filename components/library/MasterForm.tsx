@@ -1,7 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { masterSchema } from "@/lib/library/schema";
 import { Button } from "../ui/Button";
@@ -25,9 +25,9 @@ export function MasterForm({ id, initial, headTypes, porters }: { id?: number; i
     done: (r) => `Master ${r.label} saved.`,
     next: (r) => `/masters/${r.id}`,
   });
-  const headTypeId = form.watch("headTypeId");
+  const headTypeId = useWatch({ control: form.control, name: "headTypeId" });
   const ht = headTypes.find((h) => h.id === Number(headTypeId));
-  const m = form.watch("measurements");
+  const m = useWatch({ control: form.control, name: "measurements" });
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Master head">
       <FormSection title="Master head">

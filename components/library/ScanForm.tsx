@@ -1,7 +1,7 @@
 "use client";
 
 import { zodResolver } from "@hookform/resolvers/zod";
-import { useForm } from "react-hook-form";
+import { useForm, useWatch } from "react-hook-form";
 import type { z } from "zod";
 import { scanSchema } from "@/lib/library/schema";
 import { Button } from "../ui/Button";
@@ -26,7 +26,8 @@ export function ScanForm({ id, initial, options }: { id?: number; initial?: Part
     done: (r) => `Scan S-${r.id} saved.`,
     next: (r) => `/scans/${r.id}`,
   });
-  const master = options.masters.find((m) => m.id === Number(form.watch("masterId")));
+  const masterId = useWatch({ control: form.control, name: "masterId" });
+  const master = options.masters.find((m) => m.id === Number(masterId));
   const plates = master ? options.plates.filter((p) => p.headTypeId === master.headTypeId) : options.plates;
   return (
     <form onSubmit={submit} noValidate className="flex flex-col gap-4" aria-label="Scan">

@@ -17,7 +17,7 @@ export type Completed = { file: { id: number; originalName: string; sha256: stri
 
 type Phase =
   | { name: "idle" }
-  | { name: "sending"; sent: number; total: number; startedAt: number }
+  | { name: "sending"; sent: number; total: number; startedAt: number; rate: number }
   | { name: "checking" }
   | { name: "done"; result: Completed }
   | { name: "failed"; message: string }
@@ -71,13 +71,17 @@ export function MultipartUploader({
     const s = { fileId: 0, cancelled: false };
     session.current = s;
     const total = f.size;
-    setPhase({ name: "sending", sent: 0, total, startedAt: Date.now() });
+    setPhase({ name: "sending", sent: 0, total, startedAt: Date.now(), rate: 0 });
     try {
       const started = await fetchJson<Started>("/api/uploads", { method: "POST", body: JSON.stringify({ kind, fileName: f.name, sizeBytes: f.size, contentType: f.type || undefined, ...target }) });
       s.fileId = started.fileId;
       const urls = new Map(started.parts.map((p) => [p.partNumber, p.url]));
       const loaded = new Map<number, number>();
-      const report = () => setPhase((p) => (p.name === "sending" ? { ...p, sent: [...loaded.values()].reduce((a, b) => a + b, 0) } : p));
+      const report = () => {
+        const sent = [...loaded.values()].reduce((a, b) => a + b, 0);
+        const now = Date.now();
+        setPhase((p) => (p.name === "sending" ? { ...p, sent, rate: sent / Math.max(0.5, (now - p.startedAt) / 1000) } : p));
+      };
       const etags: Array<{ partNumber: number; etag: string }> = [];
       let next = 1;
       const urlFor = async (n: number) => {
@@ -142,7 +146,7 @@ export function MultipartUploader({
 
   const busy = phase.name === "sending" || phase.name === "checking";
   const fraction = phase.name === "sending" ? (phase.total ? phase.sent / phase.total : 0) : phase.name === "checking" || phase.name === "done" ? 1 : 0;
-  const rate = phase.name === "sending" ? phase.sent / Math.max(0.5, (Date.now() - phase.startedAt) / 1000) : 0;
+  const rate = phase.name === "sending" ? phase.rate : 0;
 
   return (
     <div className="flex flex-col gap-3 rounded-lg border border-dashed border-rule bg-paper p-4" data-testid={`uploader-${kind}`}>
