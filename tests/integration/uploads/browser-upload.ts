@@ -24,7 +24,7 @@ export async function putParts(user: TestUser, started: Started, bytes: Uint8Arr
   const out: Array<{ partNumber: number; etag: string }> = [];
   for (const { partNumber, url } of urls) {
     const begin = (partNumber - 1) * started.partSizeBytes;
-    const res = await fetch(url, { method: "PUT", body: Buffer.from(bytes.buffer, bytes.byteOffset + begin, Math.min(bytes.length, begin + started.partSizeBytes) - begin) });
+    const res = await fetch(url, { method: "PUT", body: bytes.slice(begin, Math.min(bytes.length, begin + started.partSizeBytes)) });
     expect(res.status).toBe(200);
     out.push({ partNumber, etag: res.headers.get("etag")! });
   }
