@@ -16,8 +16,11 @@ import { WarningLog } from "./warnings";
 
 export const DEFAULT_PREVIEW_MAX_VERTICES = 200_000;
 const READ_BUFFER_BYTES = 1 << 20;
-/** Files at least this big are hashed on a second thread. */
-const PARALLEL_HASH_MIN_BYTES = 16 << 20;
+/**
+ * Files at least this big are hashed on a second thread. Starting the thread costs about as
+ * much CPU as hashing 60 MB, so smaller files hash inline.
+ */
+const PARALLEL_HASH_MIN_BYTES = 64 << 20;
 /** Buffers shared between the reader and the hash thread (some slack for the worker's start-up). */
 const HASH_POOL_BUFFERS = 8;
 /** The first bytes are sniffed for binary content before anything else is trusted. */
@@ -211,7 +214,7 @@ export async function analyzeToolpath(source: ByteSource, options: AnalyzeOption
 
 /**
  * Analyses a file. Reads go through reused 1 MiB buffers, with the next read already under way
- * while the current chunk is analysed; files above 16 MiB are hashed on a second thread.
+ * while the current chunk is analysed; files from 64 MiB up are hashed on a second thread.
  */
 export async function analyzeToolpathFile(path: string, options: AnalyzeOptions = {}): Promise<ToolpathAnalysis> {
   let handle: FileHandle;

@@ -1,0 +1,34 @@
+/** SHA-256 on a second thread (used for big files) gives the digest of the bytes, in order. */
+import { createHash } from "node:crypto";
+import { describe, expect, it } from "vitest";
+import { mulberry32 } from "@/lib/toolpath/generate";
+import { ParallelHasher } from "@/lib/toolpath/hash-worker";
+
+describe("ParallelHasher", () => {
+  it("hashes chunks sent through a small pool of recycled buffers", async () => {
+    const random = mulberry32(3);
+    const data = Uint8Array.from({ length: 50_000 }, () => Math.floor(random() * 256));
+    const hasher = new ParallelHasher(4096, 2);
+    try {
+      for (let at = 0; at < data.length; ) {
+        const buffer = await hasher.acquire(); // waits while both buffers are with the worker
+        const n = Math.min(buffer.length, data.length - at, 1000 + (at % 3000));
+        buffer.set(data.subarray(at, at + n));
+        hasher.submit(buffer, n);
+        at += n;
+      }
+      expect(await hasher.digest()).toBe(createHash("sha256").update(data).digest("hex"));
+    } finally {
+      await hasher.close();
+    }
+  });
+
+  it("an empty input hashes to the digest of nothing", async () => {
+    const hasher = new ParallelHasher(16, 1);
+    try {
+      expect(await hasher.digest()).toBe(createHash("sha256").digest("hex"));
+    } finally {
+      await hasher.close();
+    }
+  });
+});
