@@ -12,6 +12,7 @@ import { fetchJson } from "../table/fetch-json";
 import { Button } from "../ui/Button";
 import { Field, inputClass } from "../ui/Field";
 import { currentTime, fromLocalInput, idOrNull, numberOrNull, toLocalInput } from "./options";
+import { CuttingCaution } from "./CuttingCaution";
 import { showServerErrors } from "./server-errors";
 
 type In = z.input<typeof cutSchema>;
@@ -27,12 +28,16 @@ export type CutFormProps = {
   flowTests: Array<{ id: number; headId: number; label: string }>;
   /** When the page was rendered: the form's default end time (the cut just finished). */
   now: number;
+  /** No head of the job is cut yet: the first-article caution leads. */
+  firstArticle: boolean;
 };
 
 /** The machinist's record of one port cut on one head, against the job's chosen revision. */
-export function CutForm({ jobId, heads, ports, machines, machineId, cylinders, flowTests, now }: CutFormProps) {
+export function CutForm({ jobId, heads, ports, machines, machineId, cylinders, flowTests, now, firstArticle }: CutFormProps) {
   const router = useRouter();
-  const open = heads.filter((h) => h.state !== "scrapped" && h.state !== "shipped");
+  // Heads still waiting come first, so the form starts on the next one to cut.
+  const waiting = (h: { state: HeadState }) => (h.state === "received" || h.state === "cutting" ? 0 : 1);
+  const open = heads.filter((h) => h.state !== "scrapped" && h.state !== "shipped").sort((a, b) => waiting(a) - waiting(b));
   const blank = (now: number): In => ({
     headId: open[0]?.id ?? (undefined as unknown as number),
     port: ports[0]?.port ?? "intake",
@@ -70,6 +75,9 @@ export function CutForm({ jobId, heads, ports, machines, machineId, cylinders, f
   const id = (f: string) => `cut-${jobId}-${f}`;
   return (
     <form onSubmit={submit} noValidate className="grid gap-3 sm:grid-cols-2" aria-label="Record a cut">
+      <div className="sm:col-span-2">
+        <CuttingCaution firstArticle={firstArticle} compact />
+      </div>
       <Field label="Head" htmlFor={id("head")} error={errors.headId?.message}>
         <select id={id("head")} className={inputClass(!!errors.headId)} {...form.register("headId", { setValueAs: idOrNull })}>
           {open.map((h) => (

@@ -14,7 +14,7 @@ const columns: Columns<CutRow> = [
     accessorKey: "headSerial",
     header: "Head",
     cell: (c) => (
-      <Link href={`/trace/head/${encodeURIComponent(c.row.original.headSerial)}`} className="font-mono font-semibold underline decoration-copper/50 underline-offset-2">
+      <Link href={`/trace/head/${encodeURIComponent(c.row.original.headSerial)}`} className="whitespace-nowrap font-mono font-semibold underline decoration-copper/50 underline-offset-2">
         {c.row.original.headSerial}
       </Link>
     ),
@@ -23,7 +23,7 @@ const columns: Columns<CutRow> = [
     accessorKey: "jobNumber",
     header: "Job",
     cell: (c) => (
-      <Link href={`/jobs/${c.row.original.jobId}`} className="font-mono underline decoration-copper/50 underline-offset-2">
+      <Link href={`/jobs/${c.row.original.jobId}`} className="whitespace-nowrap font-mono underline decoration-copper/50 underline-offset-2">
         {c.row.original.jobNumber}
       </Link>
     ),
@@ -32,8 +32,16 @@ const columns: Columns<CutRow> = [
   { accessorKey: "port", header: "Port", cell: (c) => `${PORT_LABEL[c.row.original.port]}${c.row.original.cylinder ? ` · cyl. ${c.row.original.cylinder}` : ""}` },
   { accessorKey: "revisionLabel", header: "Revision" },
   { id: "sha", header: "Toolpath SHA-256", enableSorting: false, cell: (c) => <ShortHash value={c.row.original.toolpathSha256} /> },
-  { accessorKey: "machineName", header: "Machine" },
-  { accessorKey: "operatorName", header: "Operator" },
+  {
+    accessorKey: "operatorName",
+    header: "Operator",
+    cell: (c) => (
+      <span>
+        {c.row.original.operatorName}
+        <span className="block text-xs text-ink-soft">{c.row.original.machineName}</span>
+      </span>
+    ),
+  },
   {
     accessorKey: "outcome",
     header: "Outcome",

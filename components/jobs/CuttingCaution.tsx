@@ -1,7 +1,15 @@
 import { Caution } from "../ui/Card";
 
 /** The cautions wherever the product hands a program to the machine or records metal removal. */
-export function CuttingCaution({ firstArticle = true }: { firstArticle?: boolean }) {
+export function CuttingCaution({ firstArticle = true, compact = false }: { firstArticle?: boolean; compact?: boolean }) {
+  if (compact) {
+    return (
+      <Caution title="Caution">
+        {firstArticle && <p>First head of the job: first-article check before cutting the rest.</p>}
+        <p>Guards closed, eye protection on. Broke through into a water jacket or a seat? Stop, record it as scrap with the reason, tell the lead.</p>
+      </Caution>
+    );
+  }
   return (
     <Caution title="Before and while cutting">
       {firstArticle && (

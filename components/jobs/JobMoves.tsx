@@ -10,6 +10,9 @@ import { Button } from "../ui/Button";
 
 export type MoveView = { to: JobState; allowed: boolean; reasons: string[] };
 
+/** The way forward is the copper button; steps back are plain; cancelling is marked as danger. */
+const FORWARD: Record<JobState, number> = { quoted: 0, scheduled: 1, on_machine: 2, in_inspection: 3, shipped: 4, cancelled: 5 };
+
 const VERB: Record<JobState, string> = {
   quoted: "Back to quoting",
   scheduled: "Schedule",
@@ -19,7 +22,7 @@ const VERB: Record<JobState, string> = {
   cancelled: "Cancel the job",
 };
 
-export function JobMoves({ jobId, moves }: { jobId: number; moves: MoveView[] }) {
+export function JobMoves({ jobId, state, moves }: { jobId: number; state: JobState; moves: MoveView[] }) {
   const router = useRouter();
   const [busy, setBusy] = useState(false);
   if (moves.length === 0) return <p className="text-sm text-ink-soft">This job is closed; it moves no further.</p>;
@@ -44,7 +47,11 @@ export function JobMoves({ jobId, moves }: { jobId: number; moves: MoveView[] })
     <ul className="flex flex-col gap-2">
       {moves.map((m) => (
         <li key={m.to} className="flex flex-wrap items-start gap-3">
-          <Button variant={m.to === "cancelled" ? "danger" : m.allowed ? "primary" : "secondary"} disabled={busy || !m.allowed} onClick={() => go(m.to)}>
+          <Button
+            variant={m.to === "cancelled" ? "danger" : FORWARD[m.to] > FORWARD[state] && m.allowed ? "primary" : "secondary"}
+            disabled={busy || !m.allowed}
+            onClick={() => go(m.to)}
+          >
             {VERB[m.to]}
           </Button>
           {!m.allowed && (

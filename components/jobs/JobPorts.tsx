@@ -79,9 +79,9 @@ function PortChoice({ jobId, view, canChoose }: { jobId: number; view: PortView;
             <p className="text-sm text-warn">No revision chosen yet.</p>
           )}
           {canChoose && (
-            <div className="flex flex-wrap items-end gap-2">
+            <div className="flex flex-col gap-2">
               <Field label={`Revision for the ${PORT_LABEL[view.port].toLowerCase()} port`} htmlFor={selectId} error={error ?? undefined}>
-                <select id={selectId} className={inputClass(!!error)} value={picked} onChange={(e) => setPicked(e.target.value)}>
+                <select id={selectId} className={`${inputClass(!!error)} w-full min-w-0`} value={picked} onChange={(e) => setPicked(e.target.value)}>
                   <option value="">Choose…</option>
                   {view.choices.map((c) => (
                     <option key={c.id} value={c.id}>
@@ -90,14 +90,16 @@ function PortChoice({ jobId, view, canChoose }: { jobId: number; view: PortView;
                   ))}
                 </select>
               </Field>
-              <Button variant="primary" disabled={busy || !picked || Number(picked) === view.revision?.id} onClick={() => save(Number(picked))}>
-                Use this revision
-              </Button>
-              {view.revision && (
-                <Button variant="quiet" disabled={busy} onClick={() => save(null)}>
-                  Clear
+              <div className="flex flex-wrap gap-2">
+                <Button variant="primary" disabled={busy || !picked || Number(picked) === view.revision?.id} onClick={() => save(Number(picked))}>
+                  Use this revision
                 </Button>
-              )}
+                {view.revision && (
+                  <Button variant="quiet" disabled={busy} onClick={() => save(null)}>
+                    Clear
+                  </Button>
+                )}
+              </div>
             </div>
           )}
           {canChoose && view.choices.length === 0 && <p className="text-sm text-ink-faint">This casting has no {view.port} program yet.</p>}

@@ -131,12 +131,21 @@ export function MachineTokens({ machines, appUrl }: { machines: Array<{ id: numb
                   <tr key={t.id} className="border-t border-rule/60" data-testid={`token-row-${t.id}`}>
                     <td className="px-3 py-2">{t.machineName}</td>
                     <td className="px-3 py-2">{t.label}</td>
-                    <td className="whitespace-nowrap px-3 py-2">
-                      {formatDateTime(t.createdAt)}
-                      {t.createdByName ? ` by ${t.createdByName}` : ""}
+                    <td className="px-3 py-2">
+                      <span className="whitespace-nowrap">{formatDateTime(t.createdAt)}</span>
+                      {t.createdByName && <span className="block text-xs text-ink-soft">by {t.createdByName}</span>}
                     </td>
                     <td className="whitespace-nowrap px-3 py-2">{t.lastUsedAt ? formatDateTime(t.lastUsedAt) : "never"}</td>
-                    <td className="px-3 py-2">{t.revokedAt ? <Badge tone="neutral">Revoked {formatDateTime(t.revokedAt)}</Badge> : <Badge tone="ok">Active</Badge>}</td>
+                    <td className="px-3 py-2">
+                      {t.revokedAt ? (
+                        <>
+                          <Badge tone="neutral">Revoked</Badge>
+                          <span className="block whitespace-nowrap text-xs text-ink-soft">{formatDateTime(t.revokedAt)}</span>
+                        </>
+                      ) : (
+                        <Badge tone="ok">Active</Badge>
+                      )}
+                    </td>
                     <td className="px-3 py-2 text-right">
                       {!t.revokedAt && (
                         <Button
@@ -155,7 +164,7 @@ export function MachineTokens({ machines, appUrl }: { machines: Array<{ id: numb
           </div>
         )}
       </div>
-      <Card title="Issue a token">
+      <Card title="Issue a token" className="self-start">
         {machines.length === 0 ? <p className="text-sm text-ink-soft">Add a machine first.</p> : <IssueForm machines={machines} onIssued={setIssued} />}
       </Card>
     </div>

@@ -156,28 +156,31 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
                             <thead className="text-left text-ink-soft">
                               <tr>
                                 <th className="px-3 py-1 font-semibold">Cut</th>
-                                <th className="px-3 py-1 font-semibold">Port</th>
-                                <th className="px-3 py-1 font-semibold">Revision</th>
-                                <th className="px-3 py-1 font-semibold">SHA-256</th>
-                                <th className="px-3 py-1 font-semibold">Machine</th>
-                                <th className="px-3 py-1 font-semibold">Operator</th>
+                                <th className="px-3 py-1 font-semibold">Revision and file</th>
+                                <th className="px-3 py-1 font-semibold">Who and where</th>
                                 <th className="px-3 py-1 font-semibold">Outcome</th>
                               </tr>
                             </thead>
                             <tbody>
                               {log.map((c) => (
                                 <tr key={c.id} className="border-t border-rule/60 align-top">
-                                  <td className="whitespace-nowrap px-3 py-1">{formatDateTime(c.startedAt)}</td>
                                   <td className="px-3 py-1">
-                                    {PORT_LABEL[c.port]}
-                                    {c.cylinder ? ` · cyl. ${c.cylinder}` : ""}
+                                    <span className="whitespace-nowrap">{formatDateTime(c.startedAt)}</span>
+                                    <span className="block text-xs text-ink-soft">
+                                      {PORT_LABEL[c.port]}
+                                      {c.cylinder ? `, cylinder ${c.cylinder}` : ""}
+                                    </span>
                                   </td>
-                                  <td className="px-3 py-1">{c.revisionLabel}</td>
                                   <td className="px-3 py-1">
-                                    <ShortHash value={c.toolpathSha256} />
+                                    {c.revisionLabel}
+                                    <span className="block">
+                                      <ShortHash value={c.toolpathSha256} />
+                                    </span>
                                   </td>
-                                  <td className="px-3 py-1">{c.machineName}</td>
-                                  <td className="px-3 py-1">{c.operatorName}</td>
+                                  <td className="px-3 py-1">
+                                    {c.operatorName}
+                                    <span className="block text-xs text-ink-soft">{c.machineName}</span>
+                                  </td>
                                   <td className="px-3 py-1">
                                     <OutcomeBadge outcome={c.outcome} />
                                     {c.reason && <p className="mt-1 max-w-xs text-xs text-ink-soft">{c.reason}</p>}
@@ -197,9 +200,6 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
 
           {isFloor && CUTTING_JOB_STATES.includes(job.state) && (
             <Card title="Record a cut">
-              <div className="mb-3">
-                <CuttingCaution firstArticle={!anyCut} />
-              </div>
               <CutForm
                 jobId={job.id}
                 heads={heads.map((h) => ({ id: h.id, serial: h.serial, state: h.state }))}
@@ -208,6 +208,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
                 machineId={job.machineId}
                 cylinders={cylinders}
                 now={currentTime()}
+                firstArticle={!anyCut}
                 flowTests={flowTestsOfHeads(
                   db(),
                   heads.map((h) => h.id),
@@ -219,7 +220,7 @@ export default async function JobPage({ params }: { params: Promise<{ id: string
 
         <div className="flex flex-col gap-4">
           <Card title="Move the job">
-            {isLead ? <JobMoves jobId={job.id} moves={moves} /> : <p className="text-sm text-ink-soft">The lead moves the job along.</p>}
+            {isLead ? <JobMoves jobId={job.id} state={job.state} moves={moves} /> : <p className="text-sm text-ink-soft">The lead moves the job along.</p>}
           </Card>
           <Card title="Details">
             <dl className="grid grid-cols-[8rem_1fr] gap-y-1 text-sm">

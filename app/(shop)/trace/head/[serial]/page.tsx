@@ -27,31 +27,29 @@ export default async function TraceHeadPage({ params }: { params: Promise<{ seri
         subtitle={`Casting ${l.head.castingNumber} · ${HEAD_SOURCE_LABEL[l.head.source]}`}
         actions={<HeadStateBadge state={l.head.state} />}
       />
-      <div className="grid gap-4 lg:grid-cols-2">
-        <Card title="Customer and job">
-          {l.job ? (
-            <dl className="grid grid-cols-[7rem_1fr] gap-y-1 text-sm">
-              <dt className="text-ink-soft">Customer</dt>
-              <dd>
-                <Link href={`/customers/${l.job.customerId}`} className="underline decoration-copper/50 underline-offset-2">
-                  {l.customer?.name}
-                </Link>
-                {l.customer?.email ? ` · ${l.customer.email}` : ""}
-              </dd>
-              <dt className="text-ink-soft">Job</dt>
-              <dd className="flex items-center gap-2">
-                <Link href={`/jobs/${l.job.id}`} className="font-mono underline decoration-copper/50 underline-offset-2">
-                  {l.job.number}
-                </Link>
-                <JobStateBadge state={l.job.state} />
-              </dd>
-              <dt className="text-ink-soft">Incoming</dt>
-              <dd>{l.head.incomingNotes || "—"}</dd>
-            </dl>
-          ) : (
-            <p className="text-sm text-ink-soft">Shop stock, not on a job.</p>
-          )}
+      <Card title="Master → scan → revision → file, for each revision that cut it">
+        {l.revisions.length === 0 ? (
+          <p className="text-sm text-ink-faint">No revision has cut this head yet.</p>
+        ) : (
+          <div className="flex flex-col gap-3">
+            {l.revisions.map((r) => (
+              <LineageChain key={r.revision.id} lineage={r} />
+            ))}
+          </div>
+        )}
+      </Card>
+      <div className="mt-4 grid gap-4 lg:grid-cols-3">
+        <Card title="Flow tests of this head">
+          <FlowList tests={l.flow.head} empty="No flow test on this head." />
         </Card>
+        <Card title="Flow tests of the revisions">
+          <FlowList tests={l.flow.revisions} empty="No flow test linked to these revisions." />
+        </Card>
+        <Card title="Flow tests of the master">
+          <FlowList tests={l.flow.masters} empty="No flow test of the master." />
+        </Card>
+      </div>
+      <div className="mt-4 grid gap-4 lg:grid-cols-2">
         <Card title="Cuts, with the checksum each was cut with">
           {l.cuts.length === 0 ? (
             <EmptyState title="Not cut yet." />
@@ -75,27 +73,29 @@ export default async function TraceHeadPage({ params }: { params: Promise<{ seri
             </ul>
           )}
         </Card>
-      </div>
-      <Card title="Lineage of each revision that cut it" className="mt-4">
-        {l.revisions.length === 0 ? (
-          <p className="text-sm text-ink-faint">No revision has cut this head yet.</p>
-        ) : (
-          <div className="flex flex-col gap-3">
-            {l.revisions.map((r) => (
-              <LineageChain key={r.revision.id} lineage={r} />
-            ))}
-          </div>
-        )}
-      </Card>
-      <div className="mt-4 grid gap-4 lg:grid-cols-3">
-        <Card title="Flow tests of this head">
-          <FlowList tests={l.flow.head} empty="No flow test on this head." />
-        </Card>
-        <Card title="Flow tests of the revisions">
-          <FlowList tests={l.flow.revisions} empty="No flow test linked to these revisions." />
-        </Card>
-        <Card title="Flow tests of the master">
-          <FlowList tests={l.flow.masters} empty="No flow test of the master." />
+        <Card title="Customer and job">
+          {l.job ? (
+            <dl className="grid grid-cols-[7rem_1fr] gap-y-1 text-sm">
+              <dt className="text-ink-soft">Customer</dt>
+              <dd>
+                <Link href={`/customers/${l.job.customerId}`} className="underline decoration-copper/50 underline-offset-2">
+                  {l.customer?.name}
+                </Link>
+                {l.customer?.email ? ` · ${l.customer.email}` : ""}
+              </dd>
+              <dt className="text-ink-soft">Job</dt>
+              <dd className="flex items-center gap-2">
+                <Link href={`/jobs/${l.job.id}`} className="font-mono underline decoration-copper/50 underline-offset-2">
+                  {l.job.number}
+                </Link>
+                <JobStateBadge state={l.job.state} />
+              </dd>
+              <dt className="text-ink-soft">Incoming</dt>
+              <dd>{l.head.incomingNotes || "—"}</dd>
+            </dl>
+          ) : (
+            <p className="text-sm text-ink-soft">Shop stock, not on a job.</p>
+          )}
         </Card>
       </div>
     </>
