@@ -72,11 +72,19 @@ export const flowTestFieldsBase = z.object({
   notes: z.string().trim().max(NOTES_MAX, { message: `Keep notes under ${NOTES_MAX} characters.` }).default(""),
 });
 
+/** One row of the lift table, with messages for a person typing (the math's own rules run after). */
+export const recordPointSchema = z.object({
+  lift: z.number({ message: "Enter the lift." }).finite({ message: "Enter the lift." }).positive({ message: "Lift must be above zero." }),
+  flow: z.number({ message: "Enter the flow." }).finite({ message: "Enter the flow." }).nonnegative({ message: "Flow cannot be negative." }),
+  /** This point's own depression, in the test's depression unit, when the bench could not hold it. */
+  depression: z.number().finite().positive({ message: "Depression must be above zero." }).optional(),
+}) satisfies z.ZodType<z.output<typeof flowPointSchema>>;
+
 export const flowTestRecordBase = flowTestFieldsBase.extend({
   liftUnit: z.enum(LIFT_UNITS).default("mm"),
   flowUnit: z.enum(FLOW_UNITS).default("cfm"),
   points: z
-    .array(flowPointSchema, { message: "Enter the lift table." })
+    .array(recordPointSchema, { message: "Enter the lift table." })
     .min(1, { message: "Enter at least one lift point." })
     .max(MAX_POINTS, { message: `At most ${MAX_POINTS} lift points.` }),
 });
@@ -153,6 +161,9 @@ function checkFields(fields: FieldsOut, ctx: z.RefinementCtx) {
 export const flowTestRecordSchema = flowTestRecordBase.superRefine((record, ctx) => {
   checkFields(record, ctx);
   // Half-entered air is reported above; the math only sees complete readings.
+  // zod still runs this after soft failures (an empty table, a negative valve); the math's
+  // rules would only repeat them or follow from them, so they wait until those are fixed.
+  if (!flowTestRecordBase.safeParse(record).success) return;
   const math = flowTestInputSchema.safeParse(toFlowInput(record));
   if (!math.success) {
     for (const issue of math.error.issues) ctx.addIssue({ code: "custom", path: issue.path as PropertyKey[], message: issue.message });

@@ -91,7 +91,7 @@ describe("flow tests", () => {
     await context.close();
   });
 
-  it("lets the lead open the flow sheet's PDF and see the edit controls", async () => {
+  it("lets the lead open the flow sheet's PDF, print it and correct the test", async () => {
     expect(recordedUrl).toMatch(/^\/flow-tests\/\d+$/);
     const { context, page } = await newPage(browser);
     await signInAs(page, "lead");
@@ -115,6 +115,19 @@ describe("flow tests", () => {
     expect(await page.getByTestId("computed-table").isVisible()).toBe(true);
     expect(await page.getByTestId("flow-chart").isVisible()).toBe(true);
     await snap(page, "flow-sheet-print");
+    await page.emulateMedia({ media: "screen" });
+
+    // The lead corrects a recorded test: the form opens with the stored values.
+    await page.getByRole("link", { name: "Edit" }).click();
+    await page.waitForURL(/\/edit$/);
+    await expect.poll(() => page.locator("#ft-head-type option:checked").textContent()).toMatch(/^HL-4471-A/);
+    expect(await page.locator("#ft-valve").inputValue()).toBe("51.31");
+    expect(await page.getByTestId("lift-table").locator("tbody tr").count()).toBe(6);
+    await page.locator("#ft-notes").fill("Re-checked against the bench log: cylinder 4, intake.");
+    await page.getByRole("button", { name: "Save changes" }).click();
+    await page.waitForURL(new RegExp(`${recordedUrl}$`));
+    await page.getByText("Re-checked against the bench log").waitFor();
+    expect(await page.getByTestId("computed-table").locator("tbody tr").count()).toBe(6);
     await context.close();
   });
 

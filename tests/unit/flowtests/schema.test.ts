@@ -15,6 +15,10 @@ const base: FlowTestRecordInput = {
   ],
 };
 
+const allIssues = (input: unknown) => {
+  const r = flowTestRecordSchema.safeParse(input);
+  return r.success ? [] : r.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`);
+};
 const issues = (input: unknown) => {
   const r = flowTestRecordSchema.safeParse(input);
   return r.success ? {} : Object.fromEntries(r.error.issues.map((i) => [i.path.join("."), i.message]));
@@ -63,5 +67,18 @@ describe("flow-test record schema", () => {
     const r = flowTestImportSchema.safeParse({ csv: "x".repeat(1024 * 1024 + 1), test: { ...base, points: undefined } });
     expect(r.success).toBe(false);
     expect(r.error?.issues.some((i) => i.path[0] === "csv")).toBe(true);
+  });
+});
+
+describe("lift-table rows", () => {
+  it("tell a person typing what is missing, row by row", () => {
+    const found = issues({ ...base, points: [{ lift: 2.54, flow: undefined }, { lift: undefined, flow: 3 }, { lift: -1, flow: -2 }] });
+    expect(found["points.0.flow"]).toBe("Enter the flow.");
+    expect(found["points.1.lift"]).toBe("Enter the lift.");
+    expect(found["points.2.lift"]).toBe("Lift must be above zero.");
+    expect(found["points.2.flow"]).toBe("Flow cannot be negative.");
+    // One message per field, not the math's repeat of it.
+    expect(allIssues({ ...base, points: [] })).toEqual(["points: Enter at least one lift point."]);
+    expect(allIssues({ ...base, valveDiameter: -3 })).toEqual(["valveDiameter: Enter the valve diameter."]);
   });
 });
