@@ -11,11 +11,13 @@ import { seedFlow } from "./seed/flow";
 import { seedJobs } from "./seed/jobs";
 import { seedLibrary } from "./seed/library";
 import { seedPeople } from "./seed/people";
+import { seedPrograms } from "./seed/programs";
 
 export type SeedContext = { people: ReturnType<typeof seedPeople>; library: ReturnType<typeof seedLibrary> };
 
 /** Later parts of the demo (programs, jobs, flow tests) hook in here, in order. */
 export const seedSteps: Array<(db: Db, ctx: SeedContext) => Promise<void> | void> = [
+  (db, ctx) => seedPrograms(db, ctx),
   seedFlow,
   seedJobs,
 ];
