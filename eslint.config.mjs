@@ -2,7 +2,7 @@ import next from "eslint-config-next";
 
 const config = [
   ...next,
-  { ignores: ["node_modules/**", ".next/**", "data/**", "db/migrations/**", "next-env.d.ts"] },
+  { ignores: ["node_modules/**", ".next/**", ".next-*/**", "data/**", "db/migrations/**", "next-env.d.ts"] },
 ];
 
 export default config;

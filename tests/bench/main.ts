@@ -5,6 +5,7 @@
 const suites: Array<[string, () => Promise<{ run(): Promise<void> }>]> = [
   ["toolpath", () => import("./toolpath")],
   ["geometry", () => import("./geometry")],
+  ["flowtests", () => import("./flowtests")],
 ];
 
 const only = process.argv[2];
