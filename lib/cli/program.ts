@@ -1,64 +1,74 @@
 /**
- * `portolan program fetch`: the cell computer downloads a job's program with its machine token,
- * and the file is only kept when its SHA-256 matches the one the server recorded.
- * Exit codes: 0 ok, 1 refused (server refusal, checksum mismatch, broken download), 2 usage.
+ * `portolan program …`: the program library from the command line.
+ *   list [--json]                              programs with their released and latest revisions
+ *   compare --a <revisionId> --b <revisionId> [--json]   analysis differences (B − A)
+ *   analyse --analysis-id <id> [--json]        run one queued analysis now, in this process
+ *   fetch --job N --port intake|exhaust --out FILE [--url U] [--token T] [--json]
+ *                                              download a job's program with a machine token (program-fetch.ts)
+ * Exit codes: 0 ok, 1 refused (unknown revision, analysis failed), 2 usage.
  */
 import { parseArgs } from "node:util";
-import { DownloadError, downloadProgram } from "../delivery/download";
+import { db } from "@/db/client";
+import { listPrograms, revisionAnalyses } from "@/db/queries/programs";
+import { runAnalysis } from "../analysis/runner";
+import { storage } from "../storage";
+import { compareRevisions, type PortReportLike, type ToolpathReportLike } from "../programs/compare";
 import type { CliIo } from "./io";
 
-const USAGE = `usage:
-  portolan program fetch --job NUMBER --port intake|exhaust --out FILE [--url URL] [--token TOKEN] [--json]
-    --url    the app's address (default: $APP_URL, else http://127.0.0.1:3000)
-    --token  the machine token (default: $PORTOLAN_MACHINE_TOKEN; prefer the variable, a flag shows in the process list)`;
+const USAGE =
+  "usage: portolan program list [--json] | compare --a <revisionId> --b <revisionId> [--json] | analyse --analysis-id <id> [--json] | fetch --job N --port intake|exhaust --out FILE [--url U] [--token T] [--json]";
 
-export async function run(args: string[], io: CliIo, fetchImpl?: typeof fetch): Promise<number> {
+export async function run(args: string[], io: CliIo): Promise<number> {
   const [command, ...rest] = args;
-  if (command !== "fetch") {
-    io.err(USAGE);
-    return 2;
-  }
+  // The cell computer's download (machine token, checksum-verified): lib/cli/program-fetch.ts.
+  if (command === "fetch") return (await import("./program-fetch")).runFetch(rest, io);
   let values: Record<string, string | boolean | undefined>;
   try {
-    ({ values } = parseArgs({
-      args: rest,
-      options: { job: { type: "string" }, port: { type: "string" }, out: { type: "string" }, url: { type: "string" }, token: { type: "string" }, json: { type: "boolean" } },
-      allowPositionals: false,
-    }));
+    ({ values } = parseArgs({ args: rest, options: { a: { type: "string" }, b: { type: "string" }, "analysis-id": { type: "string" }, json: { type: "boolean", default: false } } }));
   } catch (err) {
-    io.err(`portolan program fetch: ${(err as Error).message}\n${USAGE}`);
+    io.err(`${(err as Error).message}\n${USAGE}`);
     return 2;
   }
-  const json = values.json === true;
-  const job = values.job as string | undefined;
-  const port = values.port as string | undefined;
-  const out = values.out as string | undefined;
-  const url = (values.url as string | undefined) ?? process.env.APP_URL ?? "http://127.0.0.1:3000";
-  const token = (values.token as string | undefined) ?? process.env.PORTOLAN_MACHINE_TOKEN;
-  const problems = [
-    !job && "--job is required",
-    port !== "intake" && port !== "exhaust" && "--port must be intake or exhaust",
-    !out && "--out is required",
-    !token && "a machine token is required (--token or $PORTOLAN_MACHINE_TOKEN)",
-  ].filter(Boolean);
-  try {
-    new URL(url);
-  } catch {
-    problems.push(`--url is not a URL: ${url}`);
-  }
-  if (problems.length) {
-    io.err(`portolan program fetch: ${problems.join("; ")}\n${USAGE}`);
-    return 2;
-  }
-  try {
-    const result = await downloadProgram({ url, token: token!, job: job!, port: port as "intake" | "exhaust", out: out!, fetchImpl });
-    if (json) io.out(JSON.stringify({ ok: true, ...result }));
-    else io.out(`${result.out}: ${result.revision ?? "program"} for job ${result.job} (${result.port}), ${result.bytes} bytes, sha256 ${result.sha256} verified`);
+  if (command === "list") {
+    const page = listPrograms(db(), { page: 1, pageSize: 200, dir: "asc", sort: "castingNumber" });
+    if (values.json) io.out(JSON.stringify(page.rows));
+    else for (const p of page.rows) io.out(`${p.castingNumber}\t${p.port}\t${p.name}\treleased ${p.releasedLetter ?? "none"}\tlatest ${p.latestLetter ?? "-"} (${p.latestState ?? "-"})`);
     return 0;
-  } catch (err) {
-    if (!(err instanceof DownloadError)) throw err;
-    if (json) io.out(JSON.stringify({ ok: false, error: err.kind, message: err.message, ...err.detail }));
-    else io.err(`portolan program fetch: ${err.message}`);
-    return 1;
   }
+  if (command === "compare") {
+    const a = revisionAnalyses(db(), Number(values.a));
+    const b = revisionAnalyses(db(), Number(values.b));
+    if (!values.a || !values.b) {
+      io.err(USAGE);
+      return 2;
+    }
+    if (!a || !b) {
+      io.err("no such revision");
+      return 1;
+    }
+    const cmp = compareRevisions({ toolpaths: a.toolpaths as ToolpathReportLike[], scan: a.scan as PortReportLike | null }, { toolpaths: b.toolpaths as ToolpathReportLike[], scan: b.scan as PortReportLike | null });
+    if (values.json) io.out(JSON.stringify(cmp));
+    else {
+      const s = (d: { a: number | null; b: number | null; diff: number | null }) => `${d.a?.toFixed(1) ?? "-"} → ${d.b?.toFixed(1) ?? "-"} (${d.diff === null ? "-" : (d.diff >= 0 ? "+" : "") + d.diff.toFixed(1)})`;
+      io.out(`cycle time s   ${s(cmp.cycleTimeS)}`);
+      io.out(`cutting mm     ${s(cmp.feedLengthMm)}`);
+      io.out(`tool changes   ${s(cmp.toolChanges)}`);
+      for (const t of cmp.tools) io.out(`T${t.number}: ${t.change}`);
+      if (cmp.profile) io.out(`smallest section mm² ${s(cmp.profile.minAreaMm2)}; volume cc ${s(cmp.profile.volumeCc)}`);
+    }
+    return 0;
+  }
+  if (command === "analyse") {
+    const id = Number(values["analysis-id"]);
+    if (!Number.isInteger(id) || id <= 0) {
+      io.err(USAGE);
+      return 2;
+    }
+    const outcome = await runAnalysis(db(), storage(), id);
+    if (values.json) io.out(JSON.stringify(outcome));
+    else io.out(outcome.state === "done" ? `analysis ${id} done` : `analysis ${id} failed: ${outcome.error}`);
+    return outcome.state === "done" ? 0 : 1;
+  }
+  io.err(USAGE);
+  return 2;
 }
