@@ -1,5 +1,5 @@
 import { beforeAll, describe, expect, it } from "vitest";
-import { useDatabase } from "@/db/client";
+import { setDatabase } from "@/db/client";
 import { programs, headTypes } from "@/db/schema";
 import { run as program } from "@/lib/cli/program";
 import { run as storageCli } from "@/lib/cli/storage";
@@ -13,7 +13,7 @@ function capture() {
 
 beforeAll(() => {
   const db = freshDb();
-  useDatabase(db);
+  setDatabase(db);
   const ht = db.insert(headTypes).values({ castingNumber: "CLI-1", engineFamily: "Test", cylinders: 4, valvesPerCylinder: 2, boreMm: 80, strokeMm: 80, intakeValveMm: 40, exhaustValveMm: 34 }).returning().get();
   db.insert(programs).values({ headTypeId: ht.id, port: "exhaust", name: "Bench exhaust" }).run();
 });
