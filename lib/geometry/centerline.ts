@@ -155,13 +155,24 @@ class PointGrid {
     const iz = this.clampCell(Math.floor((z - this.min[2]) / this.cell), this.nz);
     return (iz * this.ny + iy) * this.nx + ix;
   }
-  /** Calls visit(i) for every point whose cell meets the cube of half-size r around c. */
-  near(c: Vec3, r: number, visit: (i: number) => void): void {
+  /**
+   * Calls visit(i) for every point whose cell meets the cube of half-size r around c and, when a
+   * plane is given, lies within `slab` of it (cells are culled by their centre's distance).
+   */
+  near(c: Vec3, r: number, visit: (i: number) => void, normal?: Vec3, slab = Infinity): void {
     const lo = (k: 0 | 1 | 2, n: number) => this.clampCell(Math.floor((c[k] - r - this.min[k]) / this.cell), n);
     const hi = (k: 0 | 1 | 2, n: number) => this.clampCell(Math.floor((c[k] + r - this.min[k]) / this.cell), n);
+    const reach = slab + this.cell * 0.8661; // half the cell's diagonal
     for (let iz = lo(2, this.nz); iz <= hi(2, this.nz); iz++) {
+      const dz = this.min[2] + (iz + 0.5) * this.cell - c[2];
       for (let iy = lo(1, this.ny); iy <= hi(1, this.ny); iy++) {
+        const dy = this.min[1] + (iy + 0.5) * this.cell - c[1];
         for (let ix = lo(0, this.nx); ix <= hi(0, this.nx); ix++) {
+          if (normal) {
+            const dx = this.min[0] + (ix + 0.5) * this.cell - c[0];
+            const s = dx * normal[0] + dy * normal[1] + dz * normal[2];
+            if (s > reach || s < -reach) continue;
+          }
           const cidx = (iz * this.ny + iy) * this.nx + ix;
           for (let q = this.start[cidx]; q < this.start[cidx + 1]; q++) visit(this.order[q]);
         }
@@ -196,7 +207,7 @@ function sliceAt(grid: PointGrid, p: Vec3, t: Vec3, halfWidth: number, rMax: num
     const k = binOf(x, y, WALK_BINS);
     sum[k] += Math.sqrt(r2);
     cnt[k]++;
-  });
+  }, t, halfWidth);
   const radii = new Float64Array(WALK_BINS);
   let maxRadius = 0;
   for (let k = 0; k < WALK_BINS; k++) {
@@ -270,7 +281,7 @@ export function fitCenterline(sample: Float64Array, stats: CloudStats): Centerli
   // Slab: at least ~12 sample points per angular bin on average.
   const surface = Math.max(extent * 2 * Math.PI * radius, 1e-6);
   const halfWidth = Math.max(step / 2, (12 * WALK_BINS * surface) / (2 * m * 2 * Math.PI * Math.max(radius, 1e-3)));
-  const grid = new PointGrid(sample, stats.bounds.min, Math.max(step, radius / 3, extent / 60), stats.bounds.max);
+  const grid = new PointGrid(sample, stats.bounds.min, Math.max(step, radius / 5, extent / 80), stats.bounds.max);
 
   // Start: the slice across the principal axis nearest the middle whose wall surrounds it.
   let first: Slice | null = null;

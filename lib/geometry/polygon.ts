@@ -73,42 +73,34 @@ export function hydraulicDiameter(area: number, perim: number): number {
 }
 
 /**
- * Keeps at most `maxVertices` by dropping the vertices that change the area least (Visvalingam),
- * so a fin's corners survive where a stride would cut them.
+ * Keeps at most `maxVertices` by dropping the vertices that change the area least (Visvalingam's
+ * measure), so a fin's corners survive where a stride would cut them. Done in passes: each pass
+ * drops the smallest-area vertices, never two neighbours at once, then re-measures.
  */
 export function simplifyPolygon(xy: ArrayLike<number>, maxVertices: number): number[] {
-  const n = xy.length >> 1;
-  const pts = Array.from(xy);
-  if (n <= maxVertices) return pts;
-  const prev = new Int32Array(n);
-  const next = new Int32Array(n);
-  const alive = new Uint8Array(n).fill(1);
-  for (let i = 0; i < n; i++) {
-    prev[i] = (i + n - 1) % n;
-    next[i] = (i + 1) % n;
+  let pts = Array.from(xy);
+  while (pts.length / 2 > maxVertices) {
+    const n = pts.length >> 1;
+    // A pass drops at most a tenth of the vertices, so the measure stays close to sequential.
+    const excess = Math.min(n - maxVertices, Math.max(1, Math.floor(n / 10)));
+    const w = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      const a = (i + n - 1) % n;
+      const c = (i + 1) % n;
+      w[i] = Math.abs((pts[2 * a] - pts[2 * i]) * (pts[2 * c + 1] - pts[2 * i + 1]) - (pts[2 * c] - pts[2 * i]) * (pts[2 * a + 1] - pts[2 * i + 1]));
+    }
+    const order = Array.from({ length: n }, (_, i) => i).sort((p, q) => w[p] - w[q]);
+    const drop = new Uint8Array(n);
+    let dropped = 0;
+    for (const i of order) {
+      if (dropped === excess) break;
+      if (drop[(i + n - 1) % n] || drop[(i + 1) % n]) continue;
+      drop[i] = 1;
+      dropped++;
+    }
+    const next: number[] = [];
+    for (let i = 0; i < n; i++) if (!drop[i]) next.push(pts[2 * i], pts[2 * i + 1]);
+    pts = next;
   }
-  const weight = (i: number) => {
-    const a = prev[i];
-    const c = next[i];
-    return Math.abs((pts[2 * a] - pts[2 * i]) * (pts[2 * c + 1] - pts[2 * i + 1]) - (pts[2 * c] - pts[2 * i]) * (pts[2 * a + 1] - pts[2 * i + 1]));
-  };
-  const w = new Float64Array(n);
-  for (let i = 0; i < n; i++) w[i] = weight(i);
-  let left = n;
-  // O(n²) is fine: n ≤ a few hundred outline vertices.
-  while (left > maxVertices) {
-    let best = -1;
-    for (let i = 0; i < n; i++) if (alive[i] && (best < 0 || w[i] < w[best])) best = i;
-    alive[best] = 0;
-    left--;
-    const a = prev[best];
-    const c = next[best];
-    next[a] = c;
-    prev[c] = a;
-    w[a] = weight(a);
-    w[c] = weight(c);
-  }
-  const out: number[] = [];
-  for (let i = 0; i < n; i++) if (alive[i]) out.push(pts[2 * i], pts[2 * i + 1]);
-  return out;
+  return pts;
 }

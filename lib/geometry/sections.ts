@@ -132,18 +132,18 @@ export function sectionPass(
     iy = iy < 0 ? 0 : iy >= ny ? ny - 1 : iy;
     iz = iz < 0 ? 0 : iz >= nz ? nz - 1 : iz;
     const g = grid[(iz * ny + iy) * nx + ix];
-    // The grid guess is within a station or two; pick the plane the point is closest to.
+    // The grid guess is within a station or two: walk towards the plane the point is closest to.
     let best = g;
-    let bestS = Infinity;
-    const lo = g > 2 ? g - 2 : 0;
-    const hi = g + 2 < ns ? g + 2 : ns - 1;
-    for (let j = lo; j <= hi; j++) {
+    let sb = (x - o[3 * g]) * nrm[3 * g] + (y - o[3 * g + 1]) * nrm[3 * g + 1] + (z - o[3 * g + 2]) * nrm[3 * g + 2];
+    let bestS = sb < 0 ? -sb : sb;
+    const dir = sb > 0 ? 1 : -1;
+    for (let j = g + dir, k = 0; k < 3 && j >= 0 && j < ns; j += dir, k++) {
       const s = (x - o[3 * j]) * nrm[3 * j] + (y - o[3 * j + 1]) * nrm[3 * j + 1] + (z - o[3 * j + 2]) * nrm[3 * j + 2];
       const a = s < 0 ? -s : s;
-      if (a < bestS) {
-        bestS = a;
-        best = j;
-      }
+      if (a >= bestS) break;
+      bestS = a;
+      best = j;
+      sb = s;
     }
     pointStation[i] = best;
     if (bestS > h) continue;

@@ -1,4 +1,135 @@
-// Placeholder until the geometry benchmark lands.
+/**
+ * Geometry benchmark (`npm run bench geometry`): parse throughput and peak memory of our PLY reader
+ * against a plain read of the same file and three.js PLYLoader on the same bytes, and the time of
+ * the full section profile against the parse time. Every measurement runs in a fresh child
+ * process (peak RSS is per process); each is repeated and the median time is reported.
+ * Inputs are generated once under data/bench/ (git-ignored).
+ */
+import { spawnSync } from "node:child_process";
+import { existsSync, mkdirSync, openSync, readSync, closeSync, readFileSync, statSync } from "node:fs";
+import { join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+
+const HERE = fileURLToPath(import.meta.url);
+const ROOT = resolve(HERE, "../../..");
+const DATA = join(ROOT, "data", "bench");
+const REPEATS = 3;
+
+type Measure = { mode: string; ms: number; maxRssMb: number; count?: number; profileMs?: number; sections?: number };
+
+async function child(mode: string, file: string): Promise<Measure> {
+  // Modules load (and tsx compiles them) before the clock starts, for every mode alike.
+  const { readPointCloudFile } = await import("../../lib/geometry/fileio");
+  const { analyzePort } = await import("../../lib/geometry/analyze");
+  const { PLYLoader } = await import("three/examples/jsm/loaders/PLYLoader.js");
+  const t0 = performance.now();
+  let count: number | undefined;
+  let profileMs: number | undefined;
+  let sections: number | undefined;
+  if (mode === "plain") {
+    // A plain read: 1 MiB buffer reused, nothing decoded.
+    const fd = openSync(file, "r");
+    const buf = Buffer.allocUnsafe(1 << 20);
+    let n = 0;
+    while ((n = readSync(fd, buf, 0, buf.length, null)) > 0) count = (count ?? 0) + n;
+    closeSync(fd);
+  } else if (mode === "ours" || mode === "profile") {
+    const cloud = await readPointCloudFile(file);
+    count = cloud.count;
+    if (mode === "profile") {
+      const parsed = performance.now();
+      const { report } = analyzePort(cloud, { valveDiameterMm: 46 });
+      profileMs = performance.now() - parsed;
+      sections = report.sections.length;
+      const ms = parsed - t0;
+      return { mode, ms, maxRssMb: process.resourceUsage().maxRSS / 1024, count, profileMs, sections };
+    }
+  } else if (mode === "three") {
+    const bytes = readFileSync(file);
+    const ab = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength);
+    const g = new PLYLoader().parse(ab as ArrayBuffer);
+    count = g.getAttribute("position").count;
+  }
+  return { mode, ms: performance.now() - t0, maxRssMb: process.resourceUsage().maxRSS / 1024, count };
+}
+
+function runChild(mode: string, file: string): Measure {
+  const r = spawnSync(process.execPath, ["--import", "tsx", HERE, "--child", mode, file], { cwd: ROOT, encoding: "utf8", maxBuffer: 1 << 20 });
+  const line = r.stdout.trim().split("\n").pop() ?? "";
+  if (r.status !== 0 || !line.startsWith("{")) throw new Error(`bench child ${mode} failed: ${r.stderr.slice(0, 500)}`);
+  return JSON.parse(line) as Measure;
+}
+
+function median(xs: number[]): number {
+  const s = xs.slice().sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+function measure(mode: string, file: string): Measure {
+  const runs = Array.from({ length: REPEATS }, () => runChild(mode, file));
+  const pick = (f: (m: Measure) => number | undefined) => median(runs.map((m) => f(m) ?? 0));
+  return { ...runs[0], ms: pick((m) => m.ms), maxRssMb: Math.max(...runs.map((m) => m.maxRssMb)), profileMs: pick((m) => m.profileMs) };
+}
+
+async function ensureInputs(): Promise<Record<string, string>> {
+  mkdirSync(DATA, { recursive: true });
+  const files = {
+    "1M binary": join(DATA, "port-1m.ply"),
+    "5M binary": join(DATA, "port-5m.ply"),
+    "1M ascii": join(DATA, "port-1m-ascii.ply"),
+  };
+  const { intakePortShape, sampleTubeCloud } = await import("../../lib/geometry/generate");
+  const { writePly } = await import("../../lib/geometry/writers");
+  const { writeChunksToFile } = await import("../../lib/geometry/fileio");
+  const shape = intakePortShape({ fin: true });
+  for (const [name, file] of Object.entries(files)) {
+    if (existsSync(file)) continue;
+    const points = name.startsWith("5M") ? 5_000_000 : 1_000_000;
+    console.log(`generating ${file} …`);
+    const cloud = sampleTubeCloud(shape, { points, seed: 42 });
+    await writeChunksToFile(file, writePly(cloud, name.endsWith("ascii") ? "ascii" : "binary_little_endian"));
+  }
+  return files;
+}
+
+const fmt = (x: number, d = 1) => x.toFixed(d);
+
 export async function run(): Promise<void> {
-  console.log("geometry benchmark: not written yet");
+  const files = await ensureInputs();
+  const rows: string[] = [];
+  const checks: string[] = [];
+  for (const [name, file] of Object.entries(files)) {
+    const mb = statSync(file).size / 1e6;
+    const plain = measure("plain", file);
+    const ours = measure("ours", file);
+    const three = measure("three", file);
+    const pts = (ours.count ?? 0) / 1e6;
+    rows.push(
+      `${name.padEnd(10)} ${fmt(mb).padStart(6)} MB | plain ${fmt(plain.ms, 0).padStart(5)} ms ${fmt(plain.maxRssMb, 0).padStart(4)} MB | ours ${fmt(ours.ms, 0).padStart(5)} ms ${fmt(pts / (ours.ms / 1000), 1).padStart(5)} Mpt/s ${fmt(ours.maxRssMb, 0).padStart(4)} MB | PLYLoader ${fmt(three.ms, 0).padStart(6)} ms ${fmt(three.maxRssMb, 0).padStart(5)} MB | speed ×${fmt(three.ms / ours.ms)} vs PLYLoader, ×${fmt(ours.ms / plain.ms, 2)} of plain read; memory ${fmt(ours.maxRssMb / three.maxRssMb, 2)} of PLYLoader, ${fmt(ours.maxRssMb / plain.maxRssMb, 2)} of plain`,
+    );
+    const speed = three.ms / ours.ms;
+    checks.push(`${name}: parse ≥ 4× PLYLoader: ${speed >= 4 ? "yes" : "NO"} (×${fmt(speed)})`);
+    if (!name.endsWith("ascii")) checks.push(`${name}: peak RSS ≤ ½ PLYLoader: ${ours.maxRssMb <= three.maxRssMb / 2 ? "yes" : "NO"} (${fmt(ours.maxRssMb / three.maxRssMb, 2)})`);
+    if (name.endsWith("binary")) {
+      const prof = measure("profile", file);
+      const ratio = (prof.profileMs ?? 0) / prof.ms;
+      rows.push(`${"".padEnd(10)} full profile: parse ${fmt(prof.ms, 0)} ms, profile ${fmt(prof.profileMs ?? 0, 0)} ms (${prof.sections} sections) = ×${fmt(ratio, 2)} the parse; peak RSS ${fmt(prof.maxRssMb, 0)} MB`);
+      if (name.startsWith("1M")) checks.push(`1M: full profile ≤ 5× parse: ${ratio <= 5 ? "yes" : "NO"} (×${fmt(ratio, 2)})`);
+      if (name.startsWith("5M")) checks.push(`5M: peak RSS of parse + profile < 600 MB: ${prof.maxRssMb < 600 ? "yes" : "NO"} (${fmt(prof.maxRssMb, 0)} MB)`);
+    }
+  }
+  console.log("PLY parse (median of 3 fresh processes each; peak RSS includes Node itself):");
+  for (const r of rows) console.log(r);
+  console.log("targets:");
+  for (const c of checks) console.log(`  ${c}`);
+}
+
+if (process.argv[2] === "--child") {
+  child(process.argv[3], process.argv[4]).then(
+    (m) => console.log(JSON.stringify(m)),
+    (e: unknown) => {
+      console.error(e instanceof Error ? e.stack : String(e));
+      process.exitCode = 1;
+    },
+  );
 }
