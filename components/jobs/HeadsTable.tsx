@@ -14,12 +14,12 @@ const columns: Columns<HeadRow> = [
     accessorKey: "serial",
     header: "Serial",
     cell: (c) => (
-      <Link href={`/heads/${c.row.original.id}`} className="font-mono font-semibold text-ink underline decoration-copper/50 underline-offset-2">
+      <Link href={`/heads/${c.row.original.id}`} className="whitespace-nowrap font-mono font-semibold text-ink underline decoration-copper/50 underline-offset-2">
         {c.getValue() as string}
       </Link>
     ),
   },
-  { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="font-mono">{c.getValue() as string}</span> },
+  { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="whitespace-nowrap font-mono">{c.getValue() as string}</span> },
   { accessorKey: "state", header: "State", cell: (c) => <HeadStateBadge state={c.row.original.state} /> },
   { accessorKey: "source", header: "Source", cell: (c) => HEAD_SOURCE_LABEL[c.row.original.source] },
   {
@@ -27,7 +27,7 @@ const columns: Columns<HeadRow> = [
     header: "Job",
     cell: (c) =>
       c.row.original.jobId ? (
-        <Link href={`/jobs/${c.row.original.jobId}`} className="font-mono underline decoration-copper/50 underline-offset-2">
+        <Link href={`/jobs/${c.row.original.jobId}`} className="whitespace-nowrap font-mono underline decoration-copper/50 underline-offset-2">
           {c.row.original.jobNumber}
         </Link>
       ) : (

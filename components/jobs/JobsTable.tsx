@@ -27,7 +27,7 @@ const columns: Columns<JobRow> = [
     accessorKey: "number",
     header: "Job",
     cell: (c) => (
-      <Link href={`/jobs/${c.row.original.id}`} className="font-mono font-semibold text-ink underline decoration-copper/50 underline-offset-2">
+      <Link href={`/jobs/${c.row.original.id}`} className="whitespace-nowrap font-mono font-semibold text-ink underline decoration-copper/50 underline-offset-2">
         {c.getValue() as string}
       </Link>
     ),
@@ -43,8 +43,8 @@ const columns: Columns<JobRow> = [
     ),
   },
   { accessorKey: "customerName", header: "Customer" },
-  { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="font-mono">{c.getValue() as string}</span> },
-  { accessorKey: "quantity", header: "Heads", cell: (c) => <span className="font-mono">{`${c.row.original.heads} / ${c.row.original.quantity}`}</span> },
+  { accessorKey: "castingNumber", header: "Casting", cell: (c) => <span className="whitespace-nowrap font-mono">{c.getValue() as string}</span> },
+  { accessorKey: "quantity", header: "Heads", cell: (c) => <span className="whitespace-nowrap font-mono">{`${c.row.original.heads} / ${c.row.original.quantity}`}</span> },
   {
     id: "intake",
     header: "Intake revision",
