@@ -64,8 +64,13 @@ function report(lines: number, mb: number, r: Record<Kind, Measure>): void {
   console.log(`  analysis: ${(mb / (a.ms / 1000)).toFixed(0)} MB/s, ${(lines / (a.ms / 1000) / 1e6).toFixed(2)} M lines/s, peak RSS ${a.peakRssMb.toFixed(0)} MB` +
     ` (second run in the same process: ${(mb / (warm.ms / 1000)).toFixed(0)} MB/s, ${(warm.ms / r.sha256.ms).toFixed(2)}× SHA-256)`);
   console.log(`  ratios: ${vsRead.toFixed(2)}× the plain read, ${vsSha.toFixed(2)}× SHA-256, gcode-parser takes ${vsParser.toFixed(1)}× as long`);
+  // CPU time is steadier than wall time when other work shares the cores
+  const cpuVsParser = r["gcode-parser"].cpuMs / a.cpuMs;
+  const cpuVsSha = a.cpuMs / r.sha256.cpuMs;
+  console.log(`  by CPU time: ${cpuVsSha.toFixed(2)}× SHA-256, gcode-parser ${cpuVsParser.toFixed(1)}× as long`);
   const mark = (ok: boolean) => (ok ? "met" : "NOT met");
-  console.log(`  targets: ≥10× faster than gcode-parser ${mark(vsParser >= 10)}; ≤5× SHA-256 ${mark(vsSha <= 5)}` +
+  console.log(`  targets (wall / CPU): ≥10× faster than gcode-parser ${mark(vsParser >= 10)} / ${mark(cpuVsParser >= 10)};` +
+    ` ≤5× SHA-256 ${mark(vsSha <= 5)} / ${mark(cpuVsSha <= 5)}` +
     (lines >= 5_000_000 ? `; peak RSS < 150 MB ${mark(a.peakRssMb < 150)}` : ""));
   if (r.analyze.check !== r.sha256.check.split(" ")[0]) console.log(`  WARNING: analysis digest ${a.check} differs from sha256 ${r.sha256.check}`);
 }
