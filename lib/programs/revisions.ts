@@ -21,6 +21,7 @@ import {
   type RevisionState,
 } from "@/db/schema";
 import { recordAudit } from "../audit/record";
+import { notifyJobsOfRevisionChange, type RevisionChangeNotice } from "../jobs/notices";
 import { requireRole, type Actor } from "../auth/guard";
 import { checkPassword } from "../auth/passwords";
 import { LEADS, MACHINISTS } from "../auth/roles";
@@ -133,7 +134,8 @@ export function toolpathFilesOf(db: Db, revisionId: number) {
     .all();
 }
 
-export type MoveResult = { revision: RevisionRow; notice: NoticeResult | null };
+/** `jobNotice`: the leads' e-mail about open jobs still using a revision that just ended (lib/jobs). */
+export type MoveResult = { revision: RevisionRow; notice: NoticeResult | null; jobNotice?: RevisionChangeNotice | null };
 
 /** Moves other than release: to proving, back to draft, withdrawn. */
 export async function moveRevision(db: Db, actor: Actor | null, id: number, input: unknown, opts: { now?: number; mailer?: Mailer } = {}): Promise<MoveResult> {
@@ -166,7 +168,8 @@ export async function moveRevision(db: Db, actor: Actor | null, id: number, inpu
     return row;
   });
   const notice = to === "proving" ? await provingNotice(db, moved, opts.mailer) : to === "withdrawn" ? await endNotice(db, moved, "withdrawn", opts.mailer) : null;
-  return { revision: moved, notice };
+  const jobNotice = to === "withdrawn" ? await notifyJobsOfRevisionChange(db, id, { mailer: opts.mailer }) : null;
+  return { revision: moved, notice, jobNotice };
 }
 
 export type ReleaseResult = MoveResult & { superseded: RevisionRow | null };
@@ -241,7 +244,8 @@ export async function releaseRevision(db: Db, actor: Actor | null, id: number, i
     return { revision: row, superseded };
   });
   const notice = await endNotice(db, result.revision, "released", opts.mailer);
-  return { ...result, notice };
+  const jobNotice = result.superseded ? await notifyJobsOfRevisionChange(db, result.superseded.id, { mailer: opts.mailer }) : null;
+  return { ...result, notice, jobNotice };
 }
 
 function describe(db: Db, rev: RevisionRow) {
