@@ -51,9 +51,11 @@ export function toAsyncChunks(source: ByteSource): AsyncIterator<Uint8Array | st
 const encoder = new TextEncoder();
 
 /**
- * `buf[pos..end)` is the unread window. `fill(n)` pulls chunks until n bytes are unread or the
- * source ends; the unread tail is copied in front of the next chunk (a few bytes for binary
- * records, one partial line for text).
+ * `buf[pos..end)` is the unread window. When a record or line straddles two chunks, only a small
+ * bridge is built: the unread tail plus just enough of the next chunk to finish it (the bytes a
+ * binary reader asked for, or up to the next line end for text); the rest of that chunk is then
+ * used in place. Chunks are never copied whole, so a source may even reuse its buffer between
+ * reads: nothing here holds on to a chunk once the next one is requested.
  */
 export class ByteCursor {
   buf: Uint8Array = EMPTY;
@@ -63,6 +65,8 @@ export class ByteCursor {
   bytesRead = 0;
   private readonly it: AsyncIterator<Uint8Array | string>;
   private readonly onProgress?: (bytesRead: number) => void;
+  /** Unused remainder of the last chunk, after a bridge was cut from its start. */
+  private pending: Uint8Array = EMPTY;
 
   constructor(source: ByteSource, onProgress?: (bytesRead: number) => void) {
     this.it = toAsyncChunks(source);
@@ -73,34 +77,56 @@ export class ByteCursor {
     return this.end - this.pos;
   }
 
-  /** Reads one more chunk onto the window; false when the source is exhausted. */
-  async more(): Promise<boolean> {
-    if (this.eof) return false;
-    // Copy the tail first: some sources reuse their chunk buffer on the next read.
-    const rest = this.end - this.pos;
-    const tail = rest > 0 ? this.buf.slice(this.pos, this.end) : EMPTY;
-    let chunk: Uint8Array = EMPTY;
-    while (chunk.length === 0) {
-      const r = await this.it.next();
-      if (r.done) {
-        this.eof = true;
-        this.buf = tail;
-        this.pos = 0;
-        this.end = tail.length;
-        return false;
-      }
-      const v = r.value;
-      chunk = typeof v === "string" ? encoder.encode(v) : v instanceof Uint8Array ? v : new Uint8Array(v as ArrayBuffer);
+  private async nextChunk(): Promise<Uint8Array | null> {
+    if (this.pending.length > 0) {
+      const p = this.pending;
+      this.pending = EMPTY;
+      return p;
     }
-    this.bytesRead += chunk.length;
-    this.onProgress?.(this.bytesRead);
+    for (;;) {
+      const r = await this.it.next();
+      if (r.done) return null;
+      const v = r.value;
+      const chunk = typeof v === "string" ? encoder.encode(v) : v instanceof Uint8Array ? v : new Uint8Array(v as ArrayBuffer);
+      if (chunk.length === 0) continue;
+      this.bytesRead += chunk.length;
+      this.onProgress?.(this.bytesRead);
+      return chunk;
+    }
+  }
+
+  /**
+   * Moves on to more bytes; false when the source is exhausted. With `need`, a straddling tail is
+   * completed with exactly `need` more bytes (binary records); without, up to the next newline.
+   */
+  async more(need?: number): Promise<boolean> {
+    if (this.eof) return false;
+    const rest = this.end - this.pos;
+    // Copy the tail before pulling: the source may reuse its buffer on the next read.
+    const tail = rest > 0 ? this.buf.slice(this.pos, this.end) : EMPTY;
+    const chunk = await this.nextChunk();
+    if (!chunk) {
+      this.eof = true;
+      this.buf = tail;
+      this.pos = 0;
+      this.end = tail.length;
+      return false;
+    }
     if (rest === 0) {
       this.buf = chunk;
     } else {
-      const merged = new Uint8Array(rest + chunk.length);
-      merged.set(tail, 0);
-      merged.set(chunk, rest);
-      this.buf = merged;
+      let cut: number;
+      if (need !== undefined) {
+        cut = Math.min(chunk.length, Math.max(1, need));
+      } else {
+        const nl = chunk.indexOf(10);
+        cut = nl < 0 ? chunk.length : nl + 1;
+      }
+      const bridge = new Uint8Array(rest + cut);
+      bridge.set(tail, 0);
+      bridge.set(chunk.subarray(0, cut), rest);
+      this.pending = cut < chunk.length ? chunk.subarray(cut) : EMPTY;
+      this.buf = bridge;
     }
     this.pos = 0;
     this.end = this.buf.length;
@@ -110,7 +136,7 @@ export class ByteCursor {
   /** Ensures at least n unread bytes; false if the source ended first. */
   async fill(n: number): Promise<boolean> {
     while (this.end - this.pos < n) {
-      if (!(await this.more())) return this.end - this.pos >= n;
+      if (!(await this.more(n - (this.end - this.pos)))) return this.end - this.pos >= n;
     }
     return true;
   }

@@ -18,10 +18,10 @@ const REPEATS = 3;
 type Measure = { mode: string; ms: number; maxRssMb: number; count?: number; profileMs?: number; sections?: number };
 
 async function child(mode: string, file: string): Promise<Measure> {
-  // Modules load (and tsx compiles them) before the clock starts, for every mode alike.
-  const { readPointCloudFile } = await import("../../lib/geometry/fileio");
-  const { analyzePort } = await import("../../lib/geometry/analyze");
-  const { PLYLoader } = await import("three/examples/jsm/loaders/PLYLoader.js");
+  // Each mode loads only what it uses (memory is per process), before the clock starts.
+  const ourReader = mode === "ours" || mode === "profile" ? await import("../../lib/geometry/fileio") : null;
+  const ourAnalysis = mode === "profile" ? await import("../../lib/geometry/analyze") : null;
+  const three = mode === "three" ? await import("three/examples/jsm/loaders/PLYLoader.js") : null;
   const t0 = performance.now();
   let count: number | undefined;
   let profileMs: number | undefined;
@@ -33,21 +33,21 @@ async function child(mode: string, file: string): Promise<Measure> {
     let n = 0;
     while ((n = readSync(fd, buf, 0, buf.length, null)) > 0) count = (count ?? 0) + n;
     closeSync(fd);
-  } else if (mode === "ours" || mode === "profile") {
-    const cloud = await readPointCloudFile(file);
+  } else if (ourReader) {
+    const cloud = await ourReader.readPointCloudFile(file);
     count = cloud.count;
-    if (mode === "profile") {
+    if (ourAnalysis) {
       const parsed = performance.now();
-      const { report } = analyzePort(cloud, { valveDiameterMm: 46 });
+      const { report } = ourAnalysis.analyzePort(cloud, { valveDiameterMm: 46 });
       profileMs = performance.now() - parsed;
       sections = report.sections.length;
       const ms = parsed - t0;
       return { mode, ms, maxRssMb: process.resourceUsage().maxRSS / 1024, count, profileMs, sections };
     }
-  } else if (mode === "three") {
+  } else if (three) {
     const bytes = readFileSync(file);
     const ab = bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength);
-    const g = new PLYLoader().parse(ab as ArrayBuffer);
+    const g = new three.PLYLoader().parse(ab as ArrayBuffer);
     count = g.getAttribute("position").count;
   }
   return { mode, ms: performance.now() - t0, maxRssMb: process.resourceUsage().maxRSS / 1024, count };
