@@ -5,7 +5,7 @@
 import type { JobState, Port, RevisionState } from "@/db/enums";
 
 export const JOB_STATE_LABEL: Record<JobState, string> = {
-  quoted: "Quoting",
+  quoted: "Quoted",
   scheduled: "Scheduled",
   on_machine: "On the machine",
   in_inspection: "In inspection",
