@@ -30,6 +30,7 @@ export const NAV: NavGroup[] = [
       { href: "/machines", label: "Machines", roles: ALL },
       { href: "/scans", label: "Scans", roles: ALL },
       { href: "/programs", label: "Programs", roles: ALL },
+      { href: "/view", label: "3D views", roles: ALL },
     ],
   },
   {
