@@ -7,8 +7,9 @@
  * screenshot (or a browser test) reads what is on screen.
  */
 import { OrbitControls } from "@react-three/drei";
-import { Canvas, useThree } from "@react-three/fiber";
+import { Canvas, useThree, type RootState } from "@react-three/fiber";
 import { useEffect, useState } from "react";
+import { PerspectiveCamera } from "three";
 import type { OrbitControls as OrbitControlsImpl } from "three-stdlib";
 import { Button } from "../ui/Button";
 import { boxRadius, placeCamera, VIEW_PRESETS, type Box, type Vec3, type ViewPreset } from "./camera";
@@ -18,27 +19,32 @@ export const PAPER = "#f7f4ee";
 export type ViewRequest = { preset: ViewPreset; seq: number };
 
 function CameraRig({ request, box, portAxis }: { request: ViewRequest; box: Box; portAxis: Vec3 | null }) {
-  const camera = useThree((s) => s.camera);
-  const controls = useThree((s) => s.controls) as OrbitControlsImpl | null;
-  const size = useThree((s) => s.size);
-  const invalidate = useThree((s) => s.invalidate);
+  // The camera and controls are three.js objects the rig moves imperatively; read through get().
+  const get = useThree((s) => s.get);
+  const ready = useThree((s) => s.controls !== null);
   useEffect(() => {
-    if (!controls) return;
-    const aspect = size.width > 0 && size.height > 0 ? size.width / size.height : 1.5;
-    const fov = "fov" in camera ? (camera.fov as number) : 40;
-    const { position, target } = placeCamera(request.preset, box, fov, aspect, portAxis);
-    const r = boxRadius(box);
-    camera.near = Math.max(r / 2000, 1e-3);
-    camera.far = r * 200;
-    camera.position.set(...position);
-    controls.target.set(...target);
-    camera.updateProjectionMatrix();
-    controls.update();
-    invalidate();
-    // Re-placed on a new request or new content only; a window resize keeps the user's view.
-    // eslint-disable-next-line react-hooks/exhaustive-deps
-  }, [request.seq, request.preset, controls, box, portAxis]);
+    if (!ready) return;
+    placeView(get(), request.preset, box, portAxis);
+  }, [ready, get, request.seq, request.preset, box, portAxis]);
   return null;
+}
+
+/** Puts the camera and the orbit target where the preset says, fitted to the box. */
+function placeView(state: RootState, preset: ViewPreset, box: Box, portAxis: Vec3 | null) {
+  const { camera, size, invalidate } = state;
+  const controls = state.controls as OrbitControlsImpl | null;
+  if (!controls) return;
+  const aspect = size.width > 0 && size.height > 0 ? size.width / size.height : 1.5;
+  const fov = camera instanceof PerspectiveCamera ? camera.fov : 40;
+  const { position, target } = placeCamera(preset, box, fov, aspect, portAxis);
+  const r = boxRadius(box);
+  camera.near = Math.max(r / 2000, 1e-3);
+  camera.far = r * 200;
+  camera.position.set(...position);
+  controls.target.set(...target);
+  camera.updateProjectionMatrix();
+  controls.update();
+  invalidate();
 }
 
 export function useViewRequests(initial: ViewPreset = "three-quarter") {

@@ -40,6 +40,15 @@ export default function ToolpathViewer(props: ToolpathViewerProps) {
 
 type DrawnGroup = { group: SegmentGroup; object: THREE.LineSegments };
 
+/** Shows each group up to vertex `upTo`, hiding switched-off tools (and rapids when asked). */
+function applyScrub(drawn: DrawnGroup[], upTo: number, hiddenTools: Set<number>, showRapids: boolean) {
+  for (const { group, object } of drawn) {
+    object.visible = !hiddenTools.has(group.toolIndex) && (showRapids || !group.rapid);
+    // Both layouts use two vertices (or two indices) per segment.
+    object.geometry.setDrawRange(0, 2 * segmentsUpTo(group.ends, upTo));
+  }
+}
+
 /** One line-segments object per tool and kind; visibility and scrub position applied in place. */
 function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash }: { preview: ToolpathPreview; groups: SegmentGroup[]; upTo: number; hiddenTools: Set<number>; showRapids: boolean; dash: number }) {
   const invalidate = useThree((s) => s.invalidate);
@@ -71,11 +80,7 @@ function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash }: { p
     [drawn],
   );
   useLayoutEffect(() => {
-    for (const { group, object } of drawn) {
-      object.visible = !hiddenTools.has(group.toolIndex) && (showRapids || !group.rapid);
-      // Both layouts use two vertices (or two indices) per segment.
-      object.geometry.setDrawRange(0, 2 * segmentsUpTo(group.ends, upTo));
-    }
+    applyScrub(drawn, upTo, hiddenTools, showRapids);
     invalidate();
   }, [drawn, upTo, hiddenTools, showRapids, invalidate]);
   return (

@@ -104,3 +104,24 @@ export function nearestIndex(points: ReadonlyArray<Vec3>, p: Vec3): number {
   }
   return best;
 }
+
+/** Station index of a section in the preview's per-point stations (station k sits k·step from the entry). */
+export function stationIndexOf(stationMm: number, stepMm: number): number {
+  return stepMm > 0 ? Math.round(stationMm / stepMm) : 0;
+}
+
+/** The preview points whose nearest station is `k`, as xyz triples (the slice the slider is on). */
+export function pointsAtStation(positions: Float32Array, stations: Uint16Array | null, k: number): Float32Array {
+  if (!stations) return new Float32Array(0);
+  let n = 0;
+  for (let i = 0; i < stations.length; i++) if (stations[i] === k) n++;
+  const out = new Float32Array(3 * n);
+  let o = 0;
+  for (let i = 0; i < stations.length; i++) {
+    if (stations[i] !== k) continue;
+    out[o++] = positions[3 * i];
+    out[o++] = positions[3 * i + 1];
+    out[o++] = positions[3 * i + 2];
+  }
+  return out;
+}

@@ -27,7 +27,7 @@ export type GeometryResultLite = {
   minSection: { stationMm: number; areaMm2: number; equivalentDiameterMm: number; percentOfValve: number | null } | null;
   volumeCc: number;
   valveDiameterMm: number | null;
-  guideline?: { basis: string; verdict: "below" | "within" | "above" | null };
+  guideline?: { basis: string; verdict: "below" | "within" | "above" | null; lowPercent?: number; highPercent?: number };
 };
 
 export type BoxJson = { min: { x: number; y: number; z: number }; max: { x: number; y: number; z: number } };
@@ -40,3 +40,6 @@ export type SetupContext = {
   machineName: string | null;
   machineTravel: Partial<Record<"X" | "Y" | "Z", Range>> | null;
 };
+
+/** One side of a two-scan comparison, as the page hands it to the view. */
+export type ScanSide = { analysisId: number; result: GeometryResultLite; label: string };

@@ -17,12 +17,13 @@ export function previewUrl(analysisId: number): string {
 }
 
 export function usePreviewDownload<T>(analysisId: number | null, decode: (bytes: Uint8Array) => T): PreviewState<T> {
-  const [state, setState] = useState<PreviewState<T>>({ phase: "loading", progress: { received: 0, total: null } });
+  // Tagged with the analysis it belongs to, so a new id reads as "loading" without a reset render.
+  const [tagged, setTagged] = useState<{ id: number | null; state: PreviewState<T> }>({ id: null, state: STARTING });
   useEffect(() => {
     if (analysisId === null) return;
     const abort = new AbortController();
     let last = 0;
-    setState({ phase: "loading", progress: { received: 0, total: null } });
+    const setState = (state: PreviewState<T>) => setTagged({ id: analysisId, state });
     downloadWithProgress(
       previewUrl(analysisId),
       (progress) => {
@@ -51,5 +52,7 @@ export function usePreviewDownload<T>(analysisId: number | null, decode: (bytes:
     // `decode` is a module-level function at every call site; the blob is keyed by its analysis.
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [analysisId]);
-  return state;
+  return tagged.id === analysisId ? tagged.state : STARTING;
 }
+
+const STARTING = { phase: "loading", progress: { received: 0, total: null } } as const satisfies PreviewState<never>;

@@ -12,7 +12,7 @@ describe("preview blobs as the browser reads them", () => {
     const blob = cloudPreview(positions, 4, station);
     expect(magicOf(blob)).toBe("PTPC");
     // As fetch() hands it over: a plain ArrayBuffer.
-    const p = decodeCloudPreview(blob.buffer.slice(blob.byteOffset, blob.byteOffset + blob.byteLength));
+    const p = decodeCloudPreview(blob.slice().buffer as ArrayBuffer);
     expect(p.count).toBe(4);
     expect([...p.positions]).toEqual([...positions]);
     expect([...p.stations!]).toEqual([...station]);
