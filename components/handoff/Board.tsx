@@ -69,7 +69,7 @@ function RevisionCardMoves({ card, role }: { card: Extract<BoardCard, { type: "r
 
 export function Board({ board, role }: { board: Record<BoardStage, BoardCard[]>; role: Role }) {
   return (
-    <div className="grid gap-3 md:grid-cols-3 xl:grid-cols-6" data-testid="handoff-board">
+    <div className="grid gap-3 overflow-x-auto pb-2 md:auto-cols-[minmax(14rem,1fr)] md:grid-flow-col" data-testid="handoff-board">
       {(Object.keys(COLUMN) as BoardStage[]).map((stage) => (
         <section key={stage} className="flex min-w-0 flex-col gap-2 rounded-lg border border-rule bg-paper-deep/60 p-2" aria-label={COLUMN[stage].title} data-testid={`column-${stage}`}>
           <header className="px-1">
@@ -82,7 +82,7 @@ export function Board({ board, role }: { board: Record<BoardStage, BoardCard[]>;
           {board[stage].map((card) =>
             card.type === "master" ? (
               <article key={`m${card.id}`} className="flex flex-col gap-2 rounded-md border border-rule bg-card p-2 text-sm" data-testid={`card-master-${card.label}`}>
-                <div className="flex items-center justify-between gap-2">
+                <div className="flex flex-wrap items-center justify-between gap-2">
                   <Link href={`/masters/${card.id}`} className="font-mono font-bold text-copper-deep hover:underline">
                     {card.label}
                   </Link>
@@ -97,7 +97,7 @@ export function Board({ board, role }: { board: Record<BoardStage, BoardCard[]>;
               </article>
             ) : (
               <article key={`r${card.id}`} className="flex flex-col gap-2 rounded-md border border-rule bg-card p-2 text-sm" data-testid={`card-revision-${card.id}`}>
-                <div className="flex items-center justify-between gap-2">
+                <div className="flex flex-wrap items-center justify-between gap-2">
                   <Link href={`/programs/${card.programId}/revisions/${card.id}`} className="font-semibold text-copper-deep hover:underline">
                     {card.programName} <span className="font-mono">{card.letter}</span>
                   </Link>

@@ -16,12 +16,12 @@ export function SectionProfileChart({ series }: { series: Array<{ name: string; 
   return (
     <figure className="h-64 w-full" aria-label="Section area along the port">
       <ResponsiveContainer width="100%" height="100%">
-        <LineChart data={data} margin={{ top: 8, right: 16, bottom: 16, left: 8 }}>
+        <LineChart data={data} margin={{ top: 8, right: 16, bottom: 20, left: 8 }}>
           <CartesianGrid stroke="#ddd5c7" strokeDasharray="3 3" />
           <XAxis dataKey="stationMm" type="number" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "Station along the port (mm)", position: "insideBottom", offset: -8, fontSize: 12 }} />
           <YAxis tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "Area mm²", angle: -90, position: "insideLeft", fontSize: 12 }} />
           <Tooltip formatter={(v) => (typeof v === "number" ? `${v.toFixed(0)} mm²` : String(v))} labelFormatter={(l) => `Station ${Number(l).toFixed(1)} mm`} />
-          <Legend />
+          <Legend verticalAlign="top" height={28} />
           {series.map((s, i) => (
             <Line key={s.name} type="monotone" dataKey={s.name} stroke={COLOURS[i % COLOURS.length]} dot={false} strokeWidth={2} connectNulls isAnimationActive={false} />
           ))}

@@ -6,6 +6,7 @@
  */
 import fs from "node:fs";
 import path from "node:path";
+import zlib from "node:zlib";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { intakePortShape, sampleTubeCloud } from "@/lib/geometry/generate";
@@ -23,6 +24,25 @@ let masterPath = "";
 let revisionPath = "";
 const cloudFile = path.join(work, "e2e intake scan.ply");
 const programFile = path.join(work, "e2e intake A.nc");
+const photoFile = path.join(work, "bowl cyl 1.png");
+
+/** A real 16×16 PNG (copper square), built by hand: signature, IHDR, IDAT, IEND (PNG spec). */
+function pngBytes(): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const len = Buffer.alloc(4);
+    len.writeUInt32BE(data.length);
+    const body = Buffer.concat([Buffer.from(type, "ascii"), data]);
+    const crc = Buffer.alloc(4);
+    crc.writeUInt32BE(zlib.crc32(body));
+    return Buffer.concat([len, body, crc]);
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(16, 0);
+  ihdr.writeUInt32BE(16, 4);
+  ihdr.set([8, 2, 0, 0, 0], 8);
+  const rows = Buffer.concat(Array.from({ length: 16 }, () => Buffer.concat([Buffer.from([0]), Buffer.from(Array.from({ length: 16 }, () => [176, 89, 45]).flat())])));
+  return Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk("IHDR", ihdr), chunk("IDAT", zlib.deflateSync(rows)), chunk("IEND", Buffer.alloc(0))]);
+}
 
 beforeAll(async () => {
   browser = await launchBrowser();
@@ -32,6 +52,7 @@ beforeAll(async () => {
   const out = fs.openSync(programFile, "w");
   for (const chunk of generatePortProgram({ lines: 480_000, tools: 3, seed: 9, port: "intake" })) fs.writeSync(out, chunk);
   fs.closeSync(out);
+  fs.writeFileSync(photoFile, pngBytes());
 });
 afterAll(async () => {
   await browser?.close();
@@ -76,6 +97,10 @@ describe("from the porter's bench to a released program", () => {
     await page.getByRole("heading", { name: `Master ${label}` }).waitFor();
     await page.getByRole("button", { name: "Hand over for digitizing" }).click();
     await expect.poll(() => page.getByTestId("master-stage").textContent(), { timeout: 10_000 }).toMatch(/Ready to digitize/i);
+    // A photo through the upload service, kept in our bucket and shown in the gallery.
+    await page.getByTestId("photo-uploader").locator('input[type="file"]').setInputFiles(photoFile);
+    await page.getByTestId("photo-uploader").getByRole("button", { name: "Upload", exact: true }).click();
+    await expect.poll(() => page.getByTestId("gallery").locator("img").count(), { timeout: 30_000 }).toBe(1);
     await snap(page, "handoff-porter-master");
     await page.goto("/handoff");
     await page.getByTestId(`card-master-${label}`).waitFor();
