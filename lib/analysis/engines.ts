@@ -3,8 +3,7 @@
  * out, progress as a fraction. Each engine's own types stay behind this file.
  */
 import type { Readable } from "node:stream";
-import { analyzePort } from "../geometry/analyze";
-import { readPointCloud } from "../geometry/readers/index";
+import { analyzePort, buildPreviewCloud, encodePreviewCloud, readPointCloud } from "../geometry";
 import { analyzeToolpath, encodePreview } from "../toolpath";
 import type { MachineProfile, PlateEnvelope } from "../toolpath/types";
 
@@ -43,37 +42,10 @@ export async function runGeometryEngine(job: GeometryJob): Promise<EngineOutput>
   });
   job.onProgress(0.85);
   const analysis = analyzePort(cloud, { stepMm: 2, valveDiameterMm: job.valveDiameterMm, portKind: job.portKind });
-  const preview = cloudPreview(cloud.positions, cloud.count, analysis.pointStation);
+  const preview = encodePreviewCloud(buildPreviewCloud(cloud, analysis.pointStation));
   return {
     result: analysis.report,
     preview,
     summary: `${analysis.report.points} points, ${analysis.report.sections.length} sections`,
   };
-}
-
-/**
- * Decimated preview cloud: at most PREVIEW_MAX_POINTS points (every k-th), each with its station
- * index for colouring. Layout (little-endian): "PTPC", uint16 version 1, uint16 header 16,
- * uint32 count N, uint32 reserved; then N × float32 xyz, then N × uint16 station.
- */
-export const PREVIEW_MAX_POINTS = 500_000;
-
-export function cloudPreview(positions: Float32Array, count: number, station: Uint16Array): Uint8Array {
-  const stride = Math.max(1, Math.ceil(count / PREVIEW_MAX_POINTS));
-  const n = Math.ceil(count / stride);
-  const out = new Uint8Array(16 + n * 14);
-  const view = new DataView(out.buffer);
-  [0x50, 0x54, 0x50, 0x43].forEach((b, i) => view.setUint8(i, b));
-  view.setUint16(4, 1, true);
-  view.setUint16(6, 16, true);
-  view.setUint32(8, n, true);
-  let o = 16;
-  for (let i = 0, k = 0; k < n; i += stride, k++) {
-    view.setFloat32(o, positions[3 * i], true);
-    view.setFloat32(o + 4, positions[3 * i + 1], true);
-    view.setFloat32(o + 8, positions[3 * i + 2], true);
-    o += 12;
-  }
-  for (let i = 0, k = 0; k < n; i += stride, k++, o += 2) view.setUint16(o, station[i] ?? 0, true);
-  return out;
 }

@@ -101,6 +101,10 @@ describe("from the porter's bench to a released program", () => {
     await page.getByTestId("photo-uploader").locator('input[type="file"]').setInputFiles(photoFile);
     await page.getByTestId("photo-uploader").getByRole("button", { name: "Upload", exact: true }).click();
     await expect.poll(() => page.getByTestId("gallery").locator("img").count(), { timeout: 30_000 }).toBe(1);
+    // The image arrives through the checksum-verified download and decodes.
+    const img = page.getByTestId("gallery").locator("img").first();
+    await img.scrollIntoViewIfNeeded();
+    await expect.poll(() => img.evaluate((i) => (i as HTMLImageElement).naturalWidth), { timeout: 10_000 }).toBe(16);
     await snap(page, "handoff-porter-master");
     await page.goto("/handoff");
     await page.getByTestId(`card-master-${label}`).waitFor();

@@ -19,6 +19,7 @@ import { kickAnalyses } from "@/lib/analysis/scheduler";
 import { intakePortShape, sampleTubeCloud } from "@/lib/geometry/generate";
 import { collectBytes, writePly } from "@/lib/geometry/writers";
 import { storage } from "@/lib/storage";
+import { decodePreviewCloud } from "@/lib/geometry";
 import { decodePreview, generatePortProgram } from "@/lib/toolpath";
 import { sweepAbandonedUploads } from "@/lib/uploads/sessions";
 import { freshAppDb, json, makeUser, params, request, type TestUser } from "../support/app";
@@ -173,6 +174,12 @@ describe("point-cloud upload and geometry", () => {
     expect(report.minSection!.percentOfValve).toBeGreaterThan(82);
     expect(report.minSection!.percentOfValve).toBeLessThan(92);
     expect(row.previewFileId).not.toBeNull();
+    const preview = await getPreview(await request(`/api/analyses/${row.id}/preview`, { as: auditor }), params({ id: String(row.id) }));
+    expect(preview.headers.get("x-preview-format")).toBe("PPV1");
+    const decoded = decodePreviewCloud(new Uint8Array(await preview.arrayBuffer()));
+    expect(decoded.sourceCount).toBe(60_000);
+    expect(decoded.count).toBeGreaterThan(0);
+    expect(decoded.stations).not.toBeNull();
   });
 });
 

@@ -10,7 +10,7 @@ import { openDownload } from "@/lib/uploads/download";
 /**
  * GET /api/analyses/:id/preview — the engine's preview blob for the 3D viewer:
  * toolpath analyses give the toolpath engine's encoded preview ("PTVW", lib/toolpath/preview.ts),
- * geometry analyses the preview cloud ("PTPC", lib/analysis/engines.ts).
+ * geometry analyses the geometry engine's preview cloud ("PPV1", lib/geometry/preview.ts).
  */
 export const GET = apiRoute<{ id: string }>(EVERYONE, async ({ actor, params }) => {
   const row = getAnalysis(db(), idParam(params.id));
@@ -18,6 +18,6 @@ export const GET = apiRoute<{ id: string }>(EVERYONE, async ({ actor, params }) 
   if (row.state !== "done" || !row.previewFileId) throw new AppError("not_found", "This analysis has no preview (yet).");
   const file = await openDownload(db(), storage(), actor, row.previewFileId);
   return new Response(Readable.toWeb(file.body) as ReadableStream<Uint8Array>, {
-    headers: { "content-type": "application/octet-stream", "content-length": String(file.sizeBytes), "x-content-sha256": file.sha256, "x-preview-format": row.engine === "toolpath" ? "PTVW" : "PTPC" },
+    headers: { "content-type": "application/octet-stream", "content-length": String(file.sizeBytes), "x-content-sha256": file.sha256, "x-preview-format": row.engine === "toolpath" ? "PTVW" : "PPV1" },
   });
 });
