@@ -49,3 +49,32 @@ export async function runGeometryEngine(job: GeometryJob): Promise<EngineOutput>
     summary: `${analysis.report.points} points, ${analysis.report.sections.length} sections`,
   };
 }
+
+/**
+ * The runner's first cloud-preview layout ("PTPC"), from before the geometry engine had its own
+ * blob. New analyses store the engine's PPV1; this writer stays because previews stored in PTPC
+ * remain readable by the viewer and its tests write samples with it.
+ * Layout (little-endian): "PTPC", uint16 version 1, uint16 header 16, uint32 count N, uint32
+ * reserved; then N × float32 xyz, then N × uint16 station. At most PTPC_MAX_POINTS (every k-th).
+ */
+export const PTPC_MAX_POINTS = 500_000;
+
+export function cloudPreview(positions: Float32Array, count: number, station: Uint16Array): Uint8Array {
+  const stride = Math.max(1, Math.ceil(count / PTPC_MAX_POINTS));
+  const n = Math.ceil(count / stride);
+  const out = new Uint8Array(16 + n * 14);
+  const view = new DataView(out.buffer);
+  [0x50, 0x54, 0x50, 0x43].forEach((b, i) => view.setUint8(i, b));
+  view.setUint16(4, 1, true);
+  view.setUint16(6, 16, true);
+  view.setUint32(8, n, true);
+  let o = 16;
+  for (let i = 0, k = 0; k < n; i += stride, k++) {
+    view.setFloat32(o, positions[3 * i], true);
+    view.setFloat32(o + 4, positions[3 * i + 1], true);
+    view.setFloat32(o + 8, positions[3 * i + 2], true);
+    o += 12;
+  }
+  for (let i = 0, k = 0; k < n; i += stride, k++, o += 2) view.setUint16(o, station[i] ?? 0, true);
+  return out;
+}
