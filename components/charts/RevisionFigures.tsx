@@ -44,14 +44,17 @@ function PairedBars({ title, unit, rows, labelA, labelB, digits }: { title: stri
   );
 }
 
+/** "+1 min 38 s", "−12 s", or "±0 s" when the change rounds to nothing. */
+const durationChange = (v: number | null) => (v === null ? "—" : Math.round(v) === 0 ? "±0 s" : `${v < 0 ? "−" : "+"}${formatDuration(Math.abs(v))}`);
+
 const minutes = (d: Delta) => ({ a: d.a === null ? null : d.a / 60, b: d.b === null ? null : d.b / 60 });
 const metres = (d: Delta) => ({ a: d.a === null ? null : d.a / 1000, b: d.b === null ? null : d.b / 1000 });
 
 export function RevisionFigures({ comparison: c, labelA, labelB }: { comparison: RevisionComparison; labelA: string; labelB: string }) {
   const rows: Array<{ label: string; d: Delta; show: (v: number | null) => string; diff: (v: number | null) => string }> = [
-    { label: "Cycle time (estimate)", d: c.cycleTimeS, show: formatDuration, diff: (v) => (v === null ? "—" : `${v < 0 ? "−" : "+"}${formatDuration(Math.abs(v))}`) },
-    { label: "Feed time", d: c.feedTimeS, show: formatDuration, diff: (v) => (v === null ? "—" : `${v < 0 ? "−" : "+"}${formatDuration(Math.abs(v))}`) },
-    { label: "Rapid time", d: c.rapidTimeS, show: formatDuration, diff: (v) => (v === null ? "—" : `${v < 0 ? "−" : "+"}${formatDuration(Math.abs(v))}`) },
+    { label: "Cycle time (estimate)", d: c.cycleTimeS, show: formatDuration, diff: durationChange },
+    { label: "Feed time", d: c.feedTimeS, show: formatDuration, diff: durationChange },
+    { label: "Rapid time", d: c.rapidTimeS, show: formatDuration, diff: durationChange },
     { label: "Cutting path", d: c.feedLengthMm, show: (v) => (v === null ? "—" : `${formatNumber(v / 1000, 2)} m`), diff: (v) => formatSigned(v === null ? null : v / 1000, 2, "m") },
     { label: "Rapid path", d: c.rapidLengthMm, show: (v) => (v === null ? "—" : `${formatNumber(v / 1000, 2)} m`), diff: (v) => formatSigned(v === null ? null : v / 1000, 2, "m") },
     { label: "Tool changes", d: c.toolChanges, show: (v) => formatNumber(v, 0), diff: (v) => formatSigned(v, 0) },

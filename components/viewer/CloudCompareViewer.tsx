@@ -116,7 +116,7 @@ function CompareExplorer({ a, b, cloudA, cloudB }: CloudCompareViewerProps & { c
           <Stage box={box} portAxis={axis} request={request} testId="compare-canvas" label={`${a.label} in grey and ${b.label} coloured by its distance from ${a.label}. The deviation figures are beside the view.`}>
             {showA && <PointsObject positions={cloudA.positions} colour="#b9b2a6" size={1.5} opacity={0.6} />}
             {showB && <PointsObject positions={cloudB.positions} colours={colours} colour="#57524b" size={2} />}
-            <PolylineObject points={line} colour="#1d1c1a" />
+            <PolylineObject points={line} colour="#1d1c1a" onTop />
           </Stage>
           {!finished && <LoadProgress label="Measuring the deviation point by point" fraction={cloudB.count ? dev.done / cloudB.count : 1} />}
         </div>

@@ -61,7 +61,7 @@ function CloudExplorer({ cloud, result, label }: CloudViewerProps & { cloud: Clo
           </div>
           <Stage box={box} portAxis={axis} request={request} testId="cloud-canvas" label={`${label}: ${cloud.count.toLocaleString()} preview points coloured by station, the centerline and the section at ${section ? formatNumber(section.stationMm, 1) : "—"} mm. The section's figures are beside the view.`}>
             {showCloud && <PointsObject positions={cloud.positions} colours={colours} size={2} />}
-            <PolylineObject points={line} colour="#1d1c1a" />
+            <PolylineObject points={line} colour="#1d1c1a" onTop />
             {minOutline && minIndex !== index && <PolylineObject points={minOutline} colour="#9b2c2c" closed dashed dash={r / 60} />}
             {section && <SectionPlane section={section} halfSize={extent * 1.25} />}
             {slice.length > 0 && <PointsObject positions={slice} colour="#8e4320" size={4} />}

@@ -104,7 +104,7 @@ export function Stage({
         <CameraRig request={request} box={box} portAxis={portAxis} />
         {children}
       </Canvas>
-      <p className="pointer-events-none absolute bottom-1.5 left-2 text-[11px] text-ink-faint">Drag to turn · right-drag or shift-drag to pan · wheel or pinch to zoom</p>
+      <p className="pointer-events-none absolute bottom-1.5 left-2 rounded bg-paper/85 px-1.5 text-[11px] text-ink-soft">Drag to turn · right-drag or shift-drag to pan · wheel or pinch to zoom</p>
     </div>
   );
 }

@@ -13,7 +13,7 @@ import { PREVIEW_TOOL_SHIFT, type ToolpathPreview } from "@/lib/toolpath/preview
 import { formatDuration } from "../programs/format";
 import { Button } from "../ui/Button";
 import { formatNumber } from "../ui/format";
-import { machineBoxInWork, plateBox, unionBox } from "./boxes";
+import { machineBoxInWork, plateBox } from "./boxes";
 import { boundsOfPositions, boxRadius, principalAxis, type Vec3 } from "./camera";
 import { toolColour } from "./colour";
 import { LoadProgress, ViewerProblem } from "./LoadProgress";
@@ -99,7 +99,6 @@ function ToolpathExplorer({ preview, result, setup, fileName }: ToolpathViewerPr
   const axis = useMemo(() => principalAxis(preview.positions), [preview]);
   const plate = useMemo(() => plateBox(setup.plateEnvelope), [setup.plateEnvelope]);
   const machine = useMemo(() => machineBoxInWork(setup.machineTravel, setup.workOffset), [setup.machineTravel, setup.workOffset]);
-  const fitBox = useMemo(() => unionBox(pathBox, plate) ?? pathBox, [pathBox, plate]);
   const r = boxRadius(pathBox);
   const [upTo, setUpTo] = useState(Math.max(0, n - 1));
   const [playing, setPlaying] = useState(false);
@@ -153,7 +152,7 @@ function ToolpathExplorer({ preview, result, setup, fileName }: ToolpathViewerPr
     <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]" data-testid="toolpath-viewer">
       <div className="flex min-w-0 flex-col gap-3">
         <ViewButtons request={request} onShow={show} hasPortAxis={axis !== null} />
-        <Stage box={fitBox} portAxis={axis} request={request} testId="toolpath-canvas" label={`Toolpath of ${fileName}: ${n.toLocaleString()} preview points, ${toolIndexes.length} tools. The numbers are listed beside the view.`}>
+        <Stage box={pathBox} portAxis={axis} request={request} testId="toolpath-canvas" label={`Toolpath of ${fileName}: ${n.toLocaleString()} preview points, ${toolIndexes.length} tools. The numbers are listed beside the view.`}>
           <PathLines preview={preview} groups={groups} upTo={upTo} hiddenTools={hiddenTools} showRapids={showRapids} dash={r / 80} />
           {showBoxes && plate && <BoxLines box={plate} colour={PLATE_COLOUR} />}
           {showBoxes && machine.box && <BoxLines box={machine.box} colour={MACHINE_COLOUR} dashed dash={boxRadius(machine.box) / 40} />}

@@ -31,17 +31,18 @@ export function BoxLines({ box, colour, dashed = false, dash = 1 }: { box: AxisB
   return <primitive object={object} />;
 }
 
-export function PolylineObject({ points, colour, closed = false, dashed = false, dash = 1, opacity = 1 }: { points: Float32Array; colour: string; closed?: boolean; dashed?: boolean; dash?: number; opacity?: number }) {
+/** A polyline; `onTop` draws it through whatever is in front (a centerline inside a cloud). */
+export function PolylineObject({ points, colour, closed = false, dashed = false, dash = 1, opacity = 1, onTop = false }: { points: Float32Array; colour: string; closed?: boolean; dashed?: boolean; dash?: number; opacity?: number; onTop?: boolean }) {
   const object = useMemo(() => {
     const geometry = new THREE.BufferGeometry();
     geometry.setAttribute("position", new THREE.BufferAttribute(points, 3));
-    const common = { color: colour, transparent: opacity < 1, opacity };
+    const common = { color: colour, transparent: opacity < 1 || onTop, opacity, depthTest: !onTop };
     const material = dashed ? new THREE.LineDashedMaterial({ ...common, dashSize: dash, gapSize: dash * 0.6 }) : new THREE.LineBasicMaterial(common);
     const line = closed ? new THREE.LineLoop(geometry, material) : new THREE.Line(geometry, material);
     if (dashed) line.computeLineDistances();
-    line.renderOrder = 2;
+    line.renderOrder = onTop ? 10 : 2;
     return line;
-  }, [points, colour, closed, dashed, dash, opacity]);
+  }, [points, colour, closed, dashed, dash, opacity, onTop]);
   useEffect(
     () => () => {
       object.geometry.dispose();

@@ -1,0 +1,145 @@
+/**
+ * The 3D views in Debian's chromium (WebGL on the software renderer): the seeded scan of master
+ * M-4471-01 draws its point cloud, the section slider changes the shown area and jumps to the
+ * analysis' minimum; a seeded revision draws its toolpath and the scrubber moves; three.js is
+ * fetched only by the pages that draw in 3D. Ids are looked up through the list page, not assumed.
+ */
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, newPage, snap } from "./support/browser";
+import { signInAs } from "./support/pages";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+/**
+ * Distinct colours in a WebGL canvas, read back from its kept drawing buffer through a 2D canvas:
+ * an empty view is one colour (the paper background), a drawn one has many.
+ */
+async function canvasColours(page: Page, testId: string): Promise<number> {
+  return page.evaluate(async (id) => {
+    const canvas = document.querySelector<HTMLCanvasElement>(`[data-testid="${id}"] canvas`);
+    if (!canvas || canvas.width === 0) return 0;
+    const img = new Image();
+    img.src = canvas.toDataURL("image/png");
+    await img.decode();
+    const flat = document.createElement("canvas");
+    flat.width = img.width;
+    flat.height = img.height;
+    const ctx = flat.getContext("2d")!;
+    ctx.drawImage(img, 0, 0);
+    const data = ctx.getImageData(0, 0, flat.width, flat.height).data;
+    const seen = new Set<number>();
+    for (let i = 0; i < data.length; i += 4) seen.add((data[i] << 16) | (data[i + 1] << 8) | data[i + 2]);
+    return seen.size;
+  }, testId);
+}
+
+/** Bodies of the JavaScript files a page loads, to see which pages fetch three.js. */
+function collectScripts(page: Page): string[] {
+  const bodies: string[] = [];
+  page.on("response", async (res) => {
+    if (!res.url().endsWith(".js")) return;
+    try {
+      bodies.push(await res.text());
+    } catch {
+      // a response that went away with a navigation
+    }
+  });
+  return bodies;
+}
+
+// three.js keeps this text in its renderer's messages, whatever the minifier does to names.
+const THREE_MARK = "THREE.WebGLRenderer";
+
+/** The page's "1,234" as the analysis' number formats it (en-US, no decimals). */
+const asShown = (n: number) => n.toLocaleString("en-US", { minimumFractionDigits: 0, maximumFractionDigits: 0 });
+
+describe("3D views", () => {
+  it("draws a seeded scan, moves the section slider, and jumps to the analysis' smallest section", async () => {
+    const { context, page } = await newPage(browser);
+    await signInAs(page, "machinist");
+    const scripts = collectScripts(page);
+    await page.goto("/view");
+    const row = page.getByTestId("view-scans").getByRole("row").filter({ hasText: "M-4471-01 · intake" });
+    const link = row.getByRole("link");
+    const href = (await link.getAttribute("href"))!;
+    const scanId = Number(href.split("/").at(-1));
+    expect(scanId).toBeGreaterThan(0);
+    // The list page itself does not load three.js.
+    await page.waitForLoadState("networkidle");
+    expect(scripts.some((s) => s.includes(THREE_MARK))).toBe(false);
+
+    await link.click();
+    await page.getByTestId("cloud-viewer").waitFor({ timeout: 90_000 });
+    await expect.poll(() => canvasColours(page, "cloud-canvas"), { timeout: 30_000 }).toBeGreaterThan(20);
+    expect(scripts.some((s) => s.includes(THREE_MARK))).toBe(true);
+
+    const area = page.getByTestId("section-area");
+    const slider = page.getByTestId("section-slider");
+    await slider.focus();
+    await page.keyboard.press("Home");
+    const first = await area.textContent();
+    const firstStation = await page.getByTestId("section-station").textContent();
+    for (let i = 0; i < 8; i++) await page.keyboard.press("ArrowRight");
+    await expect.poll(() => page.getByTestId("section-station").textContent()).not.toBe(firstStation);
+    expect(await area.textContent()).not.toBe(first);
+
+    // The analysis' own minimum, read from the API the way any client would.
+    const scan = (await (await page.request.get(`/api/scans/${scanId}`)).json()) as { files: Array<{ analysis: { state: string; result: { minSection: { areaMm2: number } | null } } | null }> };
+    const done = scan.files.filter((f) => f.analysis?.state === "done").at(-1)!;
+    const minArea = done.analysis!.result.minSection!.areaMm2;
+    await page.getByTestId("jump-to-min").click();
+    await expect.poll(() => area.textContent()).toBe(asShown(minArea));
+    await expect.poll(() => page.getByTestId("at-min").isVisible()).toBe(true);
+    await page.getByTestId("cloud-canvas").scrollIntoViewIfNeeded();
+    await snap(page, "viewer-scan");
+    await context.close();
+  });
+
+  it("draws a seeded revision's toolpath and scrubs it with the keyboard", async () => {
+    const { context, page } = await newPage(browser);
+    await signInAs(page, "lead");
+    await page.goto("/view");
+    await page.getByTestId("view-revisions").getByRole("link", { name: "Street intake B" }).click();
+    await page.getByTestId("toolpath-viewer").waitFor({ timeout: 90_000 });
+    await expect.poll(() => canvasColours(page, "toolpath-canvas"), { timeout: 30_000 }).toBeGreaterThan(20);
+    const position = page.getByTestId("scrub-position");
+    const full = await position.textContent();
+    expect(full).toMatch(/100 %/);
+    await page.getByTestId("toolpath-scrubber").focus();
+    await page.keyboard.press("Home");
+    await expect.poll(() => position.textContent()).toMatch(/point 1 of/);
+    await page.keyboard.press("PageUp");
+    await expect.poll(() => position.textContent()).not.toMatch(/point 1 of/);
+    // Switching every tool off leaves only the boxes and axes: fewer colours than with the path.
+    await page.keyboard.press("End");
+    const drawn = await canvasColours(page, "toolpath-canvas");
+    for (const box of await page.getByRole("group", { name: /Tools/ }).getByRole("checkbox").all()) await box.uncheck();
+    await expect.poll(() => canvasColours(page, "toolpath-canvas")).toBeLessThan(drawn);
+    for (const box of await page.getByRole("group", { name: /Tools/ }).getByRole("checkbox").all()) await box.check();
+    await page.getByRole("button", { name: "Top" }).click();
+    await snap(page, "viewer-toolpath");
+    await context.close();
+  });
+
+  it("compares two revisions with charts", async () => {
+    const { context, page } = await newPage(browser);
+    await signInAs(page, "auditor");
+    await page.goto("/view");
+    const form = page.getByRole("form", { name: "Compare two revisions" });
+    await form.getByLabel("Revision A").selectOption({ label: "Street intake A" });
+    await form.getByLabel("Revision B").selectOption({ label: "Street intake B" });
+    await form.getByRole("button", { name: "Compare the revisions" }).click();
+    await page.getByTestId("revision-charts").waitFor();
+    await page.getByTestId("revision-figures").waitFor();
+    await page.getByTestId("section-area-chart").waitFor();
+    await snap(page, "viewer-revision-compare");
+    await context.close();
+  });
+});
