@@ -56,7 +56,7 @@ export default async function ScanPage({ params }: { params: Promise<{ id: strin
             {hasRole(actor, MACHINISTS) && <UploadThenRefresh kind="point_cloud" target={{ scanId: scan.id }} label="Upload a point cloud (PLY, STL, XYZ or CSV)" />}
           </div>
         </Card>
-        <ViewerSlot kind="cloud" analysisId={latest?.analysis?.id ?? null} />
+        <ViewerSlot kind="cloud" analysisId={latest?.analysis?.id ?? null} href={`/view/scans/${scan.id}`} />
         <Card title="Photos">
           <div className="flex flex-col gap-4">
             <Gallery photos={photos} />

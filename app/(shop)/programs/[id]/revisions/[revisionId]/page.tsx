@@ -86,7 +86,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
             {!editable && <p className="text-xs text-ink-faint">The files of a revision are fixed once it leaves draft.</p>}
           </div>
         </Card>
-        <ViewerSlot kind="toolpath" analysisId={analysed?.analysis?.id ?? null} />
+        <ViewerSlot kind="toolpath" analysisId={analysed?.analysis?.id ?? null} href={`/view/revisions/${r.id}`} />
         <Card title="Setup sheet">
           <div className="flex flex-col gap-3">
             <FileList files={sheets} canRerun={false} emptyTitle="No setup sheet." />
