@@ -183,6 +183,23 @@ describe("point-cloud upload and geometry", () => {
   });
 });
 
+describe("an engine failure", () => {
+  it("keeps the engine's own message, and a re-run queues it again", async () => {
+    // A flat sheet of points: a valid XYZ file, but no port wall for the geometry engine.
+    const lines: string[] = [];
+    for (let i = 0; i < 60; i++) for (let j = 0; j < 60; j++) lines.push(`${i} ${j} 0`);
+    const up = await uploadAs(machinist, { kind: "point_cloud", fileName: "flat.xyz", scanId: world.scan.id }, text(lines.join("\n") + "\n"));
+    expect(up.status).toBe(200);
+    const outcome = await runAnalysis(db, storage(), up.body.analysisId);
+    expect(outcome.state).toBe("failed");
+    const res = await json(await getAnalysisRoute(await request(`/api/analyses/${up.body.analysisId}`, { as: auditor }), params({ id: String(up.body.analysisId) })));
+    expect(res.body.state).toBe("failed");
+    expect(res.body.error).toMatch(/plane|line|wall|tube/);
+    const again = await json(await rerun(await request(`/api/analyses/${up.body.analysisId}/rerun`, { as: machinist, method: "POST" }), params({ id: String(up.body.analysisId) })));
+    expect(again.body.state).toBe("queued");
+  });
+});
+
 describe("refusals, cancel and cleanup", () => {
   it("refuses a PNG named .nc with a clear message and keeps nothing", async () => {
     const png = new Uint8Array(4096);
