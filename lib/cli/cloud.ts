@@ -149,8 +149,8 @@ async function preview(args: string[], io: CliIo): Promise<number> {
   const stepMm = num(values["step-mm"], "step-mm");
   const maxPoints = num(values["max-points"], "max-points");
   const cloud = await readPointCloudFile(positionals[0], readOptions);
-  const { report, pointStation } = analyzePort(cloud, { stepMm });
-  const p = buildPreviewCloud(cloud, pointStation, { maxPoints, stationCount: report.sections.length ? Math.round(report.centerline.lengthMm / report.stepMm) + 1 : 0 });
+  const { pointStation } = analyzePort(cloud, { stepMm });
+  const p = buildPreviewCloud(cloud, pointStation, { maxPoints });
   const blob = encodePreviewCloud(p);
   await writeFile(positionals[1], blob);
   const out = { out: positionals[1], bytes: blob.length, points: p.count, sourcePoints: p.sourceCount, voxelMm: p.voxelMm, stationCount: p.stationCount };

@@ -136,7 +136,9 @@ function applyUserEnds(pts: Vec3[], entry: Vec3 | undefined, exit: Vec3 | undefi
 
 function stationFrames(line: Vec3[], step: number): StationFrames {
   const total = polylineLength(line);
-  const n = Math.floor(total / step + 1e-9) + 1;
+  // A last station within 5 % of a step of the measured end still counts: the end itself is only
+  // known to about the point spacing (≈ 0.1 mm).
+  const n = Math.floor(total / step + 0.05) + 1;
   const eps = Math.min(step, 1) / 2;
   const origins: Vec3[] = [];
   const tangents: Vec3[] = [];

@@ -54,7 +54,7 @@ export type SectionPassOptions = {
 };
 
 /** Maps grid cells to their nearest station so each point finds its plane in O(1). */
-function nearestStationGrid(frames: StationFrames, bounds: Bounds, maxCells = 65_536) {
+function nearestStationGrid(frames: StationFrames, bounds: Bounds, maxCells = 32_768) {
   const pad = 1;
   const min: Vec3 = [bounds.min[0] - pad, bounds.min[1] - pad, bounds.min[2] - pad];
   const size: Vec3 = [bounds.max[0] - bounds.min[0] + 2 * pad, bounds.max[1] - bounds.min[1] + 2 * pad, bounds.max[2] - bounds.min[2] + 2 * pad];
@@ -111,6 +111,10 @@ export function sectionPass(
   const U = frames.u;
   const V = frames.v;
   const pointStation = new Uint16Array(count);
+  const inv = 1 / cell;
+  const mx = min[0];
+  const my = min[1];
+  const mz = min[2];
   // Slab points, compact: radius and (station·K + bin). Grows as needed.
   let cap = Math.max(1024, Math.min(count, Math.ceil(count * Math.min(1, (2.5 * h * ns) / Math.max(frames.stationMm[ns - 1] || 1, 1)))));
   let rad = new Float32Array(cap);
@@ -125,9 +129,10 @@ export function sectionPass(
     const x = positions[p];
     const y = positions[p + 1];
     const z = positions[p + 2];
-    let ix = Math.floor((x - min[0]) / cell);
-    let iy = Math.floor((y - min[1]) / cell);
-    let iz = Math.floor((z - min[2]) / cell);
+    // The grid is padded past the bounds, so these are non-negative and truncation is floor.
+    let ix = ((x - mx) * inv) | 0;
+    let iy = ((y - my) * inv) | 0;
+    let iz = ((z - mz) * inv) | 0;
     ix = ix < 0 ? 0 : ix >= nx ? nx - 1 : ix;
     iy = iy < 0 ? 0 : iy >= ny ? ny - 1 : iy;
     iz = iz < 0 ? 0 : iz >= nz ? nz - 1 : iz;
