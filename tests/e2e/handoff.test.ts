@@ -213,4 +213,18 @@ describe("from the porter's bench to a released program", () => {
     await snap(page, "handoff-auditor-board");
     await context.close();
   });
+
+  it("anyone compares the demo's street intake revisions side by side, on a tablet", async () => {
+    const { context, page } = await newPage(browser, { width: 820, height: 1180 });
+    await signInAs(page, "auditor");
+    await page.goto("/programs");
+    await page.getByRole("link", { name: "Street intake" }).click();
+    await page.waitForURL(/\/programs\/\d+$/);
+    await page.getByRole("button", { name: "Compare" }).click();
+    await page.waitForURL(/\/compare\?a=\d+&b=\d+/);
+    await expect.poll(() => page.getByTestId("compare-times").textContent()).toMatch(/Cycle time/);
+    expect(await page.getByRole("note").first().textContent()).toMatch(/first-article cut/);
+    await snap(page, "handoff-compare-tablet");
+    await context.close();
+  });
 });
