@@ -6,6 +6,7 @@
 import { createHash, type Hash } from "node:crypto";
 import { open, type FileHandle } from "node:fs/promises";
 import { PreviewDecimator } from "./decimate";
+import { generatePortProgram } from "./generate";
 import { ParallelHasher } from "./hash-worker";
 import { Interpreter, SUM_DWELL_S, SUM_FEED_MIN, SUM_FEED_MM, SUM_RAPID_MIN, SUM_RAPID_MM, SUM_ROTARY_A } from "./interpreter";
 import { LimitChecker } from "./limits";
@@ -61,6 +62,7 @@ export class ToolpathAnalyzer {
     private readonly options: AnalyzeOptions = {},
     private readonly hashElsewhere = false,
   ) {
+    warmUpOnce();
     this.hash = hashElsewhere ? null : createHash("sha256");
     this.limits = new LimitChecker(options.machine, options.plate);
     this.decimator = new PreviewDecimator(options.previewMaxVertices ?? DEFAULT_PREVIEW_MAX_VERTICES);
@@ -184,6 +186,26 @@ export class ToolpathAnalyzer {
     if (seen >= 256 && this.highBytes * 10 > seen * 3) {
       throw new ToolpathInputError("binary", "the file is binary (mostly non-ASCII bytes), not G-code text");
     }
+  }
+}
+
+/**
+ * The first analyser in a process first reads a small built-in sample (about 3 ms), so the JIT
+ * has seen the common paths (rapids and cuts from known positions, tool changes, comments)
+ * before it optimises the hot loop. Without it, the first tool change deep inside a big file
+ * throws the optimised code away and costs more than the sample does.
+ */
+let warmedUp = false;
+function warmUpOnce(): void {
+  if (warmedUp) return;
+  warmedUp = true;
+  try {
+    const sample = new TextEncoder().encode([...generatePortProgram({ lines: 600, tools: 3, seed: 1 })].join(""));
+    const analyzer = new ToolpathAnalyzer({ previewMaxVertices: 64 });
+    analyzer.push(sample);
+    analyzer.finish();
+  } catch {
+    // only a speed-up: an analysis never depends on it
   }
 }
 
