@@ -59,11 +59,11 @@ export function seedLibrary(db: Db) {
       axes: "XYZAB",
       limits: {
         travelMm: { X: { min: -380, max: 380 }, Y: { min: -250, max: 250 }, Z: { min: -450, max: 50 } },
-        rotaryDeg: { A: { min: -120, max: 30 }, B: { min: -360, max: 360 } },
+        rotaryDeg: { A: { min: -120, max: 120 }, B: { min: -360, max: 360 } },
         rapidPerMin: { X: 36000, Y: 36000, Z: 30000, A: 9000, B: 12000 },
       },
       maxFeedMmMin: 12000,
-      maxSpindleRpm: 18000,
+      maxSpindleRpm: 24000,
       toolChangeS: 6,
       notes: "Guard interlocks checked every shift. Eye protection inside the yellow line.",
     })
@@ -79,7 +79,8 @@ export function seedLibrary(db: Db) {
           datumDescription: "Two 12 mm dowels in the deck face, head clamped deck-down; datum at the left dowel centre.",
           workOffsets: { G54: { x: -152.4, y: 0, z: -210.0 } },
           portAxisAngles: { intake: { a: -38, b: 0 }, exhaust: { a: -24, b: 180 } },
-          envelope: { min: { x: -60, y: -45, z: -120 }, max: { x: 60, y: 45, z: 40 } },
+          // A safe box that holds the ports' sweep and the retract height of the generated programs.
+          envelope: { min: { x: -40, y: -60, z: -110 }, max: { x: 110, y: 60, z: 110 } },
           notes: "Check the dowel bores for burrs before every load.",
         })
         .returning({ id: fixturePlates.id })

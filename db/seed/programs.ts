@@ -63,16 +63,6 @@ export async function seedPrograms(db: Db, ctx: Ctx, store: Storage = storage())
   const [ht4471, ht2205, ht9032] = ctx.library.headTypeIds;
   const [plate4471, , plate9032] = ctx.library.plateIds;
 
-  // The generated programs swing the trunnion to +53° and retract to Z100: give the demo cell a
-  // ±120° trunnion and the plates a safe box that holds the ports' sweep, as a shop would set them.
-  const cell = db.select().from(machines).where(eq(machines.id, ctx.library.machineId)).get()!;
-  db.update(machines)
-    .set({ limits: { ...cell.limits, rotaryDeg: { ...cell.limits.rotaryDeg, A: { min: -120, max: 120 } } }, maxSpindleRpm: 24000 })
-    .where(eq(machines.id, cell.id))
-    .run();
-  for (const id of ctx.library.plateIds) {
-    db.update(fixturePlates).set({ envelope: { min: { x: -40, y: -60, z: -110 }, max: { x: 110, y: 60, z: 110 } } }).where(eq(fixturePlates.id, id)).run();
-  }
   const valves = db.select().from(headTypes).where(eq(headTypes.id, ht4471)).get()!;
 
   // ── HL-4471-A: a digitized master, its scans, and two programs in production ──
@@ -93,8 +83,8 @@ export async function seedPrograms(db: Db, ctx: Ctx, store: Storage = storage())
     notes: "Master for the street program; bench-tested on 2025-02-20.",
   });
   await moveMaster(db, porter, m4471.id, { to: "ready_to_digitize" }, opts);
-  const scanIn = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: cell.id, port: "intake", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-24", notes: "Cylinder 1 intake; stylus calibrated on the ring gauge before the run." });
-  const scanEx = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: cell.id, port: "exhaust", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-25", notes: "Cylinder 1 exhaust." });
+  const scanIn = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: ctx.library.machineId, port: "intake", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-24", notes: "Cylinder 1 intake; stylus calibrated on the ring gauge before the run." });
+  const scanEx = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: ctx.library.machineId, port: "exhaust", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-25", notes: "Cylinder 1 exhaust." });
   await addCloud(db, store, machinist, scanIn.id, "M-4471-01 intake cyl1.ply", { valveDiameterMm: valves.intakeValveMm, throatPercent: 88, bendDeg: 68 }, 41);
   await addCloud(db, store, machinist, scanEx.id, "M-4471-01 exhaust cyl1.ply", { valveDiameterMm: valves.exhaustValveMm, throatPercent: 86, bendDeg: 55, entryWidthMm: 36, entryHeightMm: 30, runnerMm: 30 }, 42);
 
@@ -136,7 +126,7 @@ export async function seedPrograms(db: Db, ctx: Ctx, store: Storage = storage())
     measurements: {},
   });
   const race = createProgram(db, machinist, { headTypeId: ht9032, port: "intake", name: "Race intake" });
-  const raceA = createRevision(db, machinist, race.id, { plateId: plate9032, machineId: cell.id, changeNote: "Race port carried over from the previous casting's program; to be proven on a scrap head." });
+  const raceA = createRevision(db, machinist, race.id, { plateId: plate9032, machineId: ctx.library.machineId, changeNote: "Race port carried over from the previous casting's program; to be proven on a scrap head." });
   await addToolpath(db, store, machinist, raceA.id, "9032 race intake A.nc", { port: "intake", seed: 301, lines: 80_000 });
   await moveRevision(db, machinist, raceA.id, { to: "proving" }, opts);
 }
