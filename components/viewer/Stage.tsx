@@ -80,11 +80,14 @@ export function Stage({
   request,
   label,
   testId,
+  onMoving,
   children,
 }: {
   box: Box;
   portAxis: Vec3 | null;
   request: ViewRequest;
+  /** Told when the user starts and stops turning, panning or zooming (to lighten heavy scenes). */
+  onMoving?: (moving: boolean) => void;
   /** Says what the picture shows, for people who cannot see it; the numbers sit beside it. */
   label: string;
   testId: string;
@@ -95,12 +98,12 @@ export function Stage({
       <Canvas
         frameloop="demand"
         dpr={[1, 2]}
-        gl={{ preserveDrawingBuffer: true, antialias: true }}
+        gl={{ preserveDrawingBuffer: true, antialias: false }}
         camera={{ fov: 40, up: [0, 0, 1], position: [1, -1, 1] }}
         onCreated={({ gl }) => gl.setClearColor(PAPER)}
       >
         <ambientLight intensity={1} />
-        <OrbitControls makeDefault enableDamping={false} />
+        <OrbitControls makeDefault enableDamping={false} onStart={onMoving && (() => onMoving(true))} onEnd={onMoving && (() => onMoving(false))} />
         <CameraRig request={request} box={box} portAxis={portAxis} />
         {children}
       </Canvas>

@@ -20,7 +20,7 @@ import { LoadProgress, ViewerProblem } from "./LoadProgress";
 import { decodeToolpathPreview } from "./preview-blobs";
 import { BoxLines, Marker } from "./scene-parts";
 import { Stage, useViewRequests, ViewButtons } from "./Stage";
-import { clampVertex, dashedSegments, groupSegments, playStep, scrubFraction, segmentIndex, segmentsUpTo, vertexAtLine, type SegmentGroup } from "./toolpath-segments";
+import { clampVertex, coarseSegments, dashedSegments, groupSegments, playStep, scrubFraction, segmentIndex, segmentsUpTo, vertexAtLine, type CoarseSegments, type SegmentGroup } from "./toolpath-segments";
 import type { SetupContext, ToolpathResultLite } from "./types";
 import { usePreviewDownload } from "./usePreviewDownload";
 
@@ -38,26 +38,43 @@ export default function ToolpathViewer(props: ToolpathViewerProps) {
   return <ToolpathExplorer preview={state.data} {...props} />;
 }
 
-type DrawnGroup = { group: SegmentGroup; object: THREE.LineSegments };
+/** Feed groups carry a full and a coarse index; rapids (few, dashed) are always drawn in full. */
+type DrawnGroup = { group: SegmentGroup; object: THREE.LineSegments; full: THREE.BufferAttribute | null; coarse: (CoarseSegments & { attribute: THREE.BufferAttribute }) | null };
 
-/** Shows each group up to vertex `upTo`, hiding switched-off tools (and rapids when asked). */
-function applyScrub(drawn: DrawnGroup[], upTo: number, hiddenTools: Set<number>, showRapids: boolean) {
-  for (const { group, object } of drawn) {
+/** Previews above this many vertices switch to the coarse stand-in while the camera moves. */
+const COARSE_ABOVE = 60_000;
+const COARSE_RUN = 4;
+
+/**
+ * Shows each group up to vertex `upTo`, hiding switched-off tools (and rapids when asked); with
+ * `moving`, feed groups draw their coarse stand-in.
+ */
+function applyScrub(drawn: DrawnGroup[], upTo: number, hiddenTools: Set<number>, showRapids: boolean, moving: boolean) {
+  for (const { group, object, full, coarse } of drawn) {
     object.visible = !hiddenTools.has(group.toolIndex) && (showRapids || !group.rapid);
+    const geometry = object.geometry;
+    if (coarse && full) {
+      const wanted = moving ? coarse.attribute : full;
+      if (geometry.index !== wanted) geometry.setIndex(wanted);
+    }
     // Both layouts use two vertices (or two indices) per segment.
-    object.geometry.setDrawRange(0, 2 * segmentsUpTo(group.ends, upTo));
+    const count = moving && coarse ? segmentsUpTo(coarse.ends, upTo) : segmentsUpTo(group.ends, upTo);
+    geometry.setDrawRange(0, 2 * count);
   }
 }
 
 /** One line-segments object per tool and kind; visibility and scrub position applied in place. */
-function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash }: { preview: ToolpathPreview; groups: SegmentGroup[]; upTo: number; hiddenTools: Set<number>; showRapids: boolean; dash: number }) {
+function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash, moving }: { preview: ToolpathPreview; groups: SegmentGroup[]; upTo: number; hiddenTools: Set<number>; showRapids: boolean; dash: number; moving: boolean }) {
   const invalidate = useThree((s) => s.invalidate);
   const drawn = useMemo<DrawnGroup[]>(() => {
     // Feed groups share one position buffer (uploaded once) and differ only in their index.
     const shared = new THREE.BufferAttribute(preview.positions, 3);
+    const lighten = preview.flags.length > COARSE_ABOVE;
     return groups.map((group) => {
       const geometry = new THREE.BufferGeometry();
       let material: THREE.Material;
+      let full: THREE.BufferAttribute | null = null;
+      let coarse: DrawnGroup["coarse"] = null;
       if (group.rapid) {
         const d = dashedSegments(preview.positions, group.ends);
         geometry.setAttribute("position", new THREE.BufferAttribute(d.positions, 3));
@@ -65,10 +82,15 @@ function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash }: { p
         material = new THREE.LineDashedMaterial({ color: RAPID_COLOUR, dashSize: dash, gapSize: dash * 0.8, transparent: true, opacity: 0.55 });
       } else {
         geometry.setAttribute("position", shared);
-        geometry.setIndex(new THREE.BufferAttribute(segmentIndex(group.ends), 1));
+        full = new THREE.BufferAttribute(segmentIndex(group.ends), 1);
+        geometry.setIndex(full);
+        if (lighten) {
+          const c = coarseSegments(group.ends, COARSE_RUN);
+          coarse = { ...c, attribute: new THREE.BufferAttribute(c.index, 1) };
+        }
         material = new THREE.LineBasicMaterial({ color: toolColour(group.toolIndex) });
       }
-      return { group, object: new THREE.LineSegments(geometry, material) };
+      return { group, object: new THREE.LineSegments(geometry, material), full, coarse };
     });
   }, [preview, groups, dash]);
   useEffect(
@@ -80,9 +102,9 @@ function PathLines({ preview, groups, upTo, hiddenTools, showRapids, dash }: { p
     [drawn],
   );
   useLayoutEffect(() => {
-    applyScrub(drawn, upTo, hiddenTools, showRapids);
+    applyScrub(drawn, upTo, hiddenTools, showRapids, moving);
     invalidate();
-  }, [drawn, upTo, hiddenTools, showRapids, invalidate]);
+  }, [drawn, upTo, hiddenTools, showRapids, moving, invalidate]);
   return (
     <>
       {drawn.map(({ group, object }) => (
@@ -105,6 +127,7 @@ function ToolpathExplorer({ preview, result, setup, fileName }: ToolpathViewerPr
   const [hiddenTools, setHiddenTools] = useState<Set<number>>(() => new Set());
   const [showRapids, setShowRapids] = useState(true);
   const [showBoxes, setShowBoxes] = useState(true);
+  const [moving, setMoving] = useState(false);
   const { request, show } = useViewRequests();
 
   useEffect(() => {
@@ -152,8 +175,8 @@ function ToolpathExplorer({ preview, result, setup, fileName }: ToolpathViewerPr
     <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]" data-testid="toolpath-viewer">
       <div className="flex min-w-0 flex-col gap-3">
         <ViewButtons request={request} onShow={show} hasPortAxis={axis !== null} />
-        <Stage box={pathBox} portAxis={axis} request={request} testId="toolpath-canvas" label={`Toolpath of ${fileName}: ${n.toLocaleString()} preview points, ${toolIndexes.length} tools. The numbers are listed beside the view.`}>
-          <PathLines preview={preview} groups={groups} upTo={upTo} hiddenTools={hiddenTools} showRapids={showRapids} dash={r / 80} />
+        <Stage box={pathBox} portAxis={axis} request={request} onMoving={setMoving} testId="toolpath-canvas" label={`Toolpath of ${fileName}: ${n.toLocaleString()} preview points, ${toolIndexes.length} tools. The numbers are listed beside the view.`}>
+          <PathLines preview={preview} groups={groups} upTo={upTo} hiddenTools={hiddenTools} showRapids={showRapids} dash={r / 80} moving={moving} />
           {showBoxes && plate && <BoxLines box={plate} colour={PLATE_COLOUR} />}
           {showBoxes && machine.box && <BoxLines box={machine.box} colour={MACHINE_COLOUR} dashed dash={boxRadius(machine.box) / 40} />}
           {violations.map((v) => (

@@ -111,3 +111,32 @@ export function vertexAtLine(lineNumbers: Uint32Array, line: number): number {
 export function playStep(vertexCount: number, seconds = 20): number {
   return Math.max(1, Math.ceil(vertexCount / (seconds * 60)));
 }
+
+export type CoarseSegments = {
+  /** Index pairs (start vertex, end vertex) of the merged segments. */
+  index: Uint32Array;
+  /** Last original end vertex each merged segment covers, ascending (for the scrubber). */
+  ends: Uint32Array;
+};
+
+/**
+ * A lighter stand-in for a group while the camera moves: runs of `k` consecutive segments (no
+ * break or other group in between) become one segment from the run's first start to its last
+ * end. Decimated previews are already dense along the path, so the shape holds at a quarter of
+ * the segments; at rest the full group is drawn again.
+ */
+export function coarseSegments(ends: Uint32Array, k: number): CoarseSegments {
+  const step = Math.max(1, Math.floor(k));
+  const index: number[] = [];
+  const last: number[] = [];
+  let j = 0;
+  while (j < ends.length) {
+    // Extend the run while the next segment starts where this one ended.
+    let r = j;
+    while (r + 1 < ends.length && r - j + 1 < step && ends[r + 1] === ends[r] + 1) r++;
+    index.push(ends[j] - 1, ends[r]);
+    last.push(ends[r]);
+    j = r + 1;
+  }
+  return { index: Uint32Array.from(index), ends: Uint32Array.from(last) };
+}

@@ -6,6 +6,7 @@
  */
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { DEFAULT_PREVIEW_MAX_VERTICES, encodePreview, generatePortProgram, ToolpathAnalyzer } from "@/lib/toolpath";
 import { launchBrowser, newPage, snap } from "./support/browser";
 import { signInAs } from "./support/pages";
 
@@ -125,6 +126,37 @@ describe("3D views", () => {
     for (const box of await page.getByRole("group", { name: /Tools/ }).getByRole("checkbox").all()) await box.check();
     await page.getByRole("button", { name: "Top" }).click();
     await snap(page, "viewer-toolpath");
+    await context.close();
+  });
+
+  it("draws a preview of over 200,000 vertices (a long program's, served in place of the seeded one)", async () => {
+    // A generated 4-tool program of 1.4 M lines, streamed through the engine chunk by chunk, with
+    // the preview budget raised a little so it ends above the stored previews' 200,000 cap.
+    const analyzer = new ToolpathAnalyzer({ previewMaxVertices: DEFAULT_PREVIEW_MAX_VERTICES * 1.2 });
+    const encoder = new TextEncoder();
+    for (const chunk of generatePortProgram({ lines: 1_400_000, tools: 4, seed: 9 })) analyzer.push(encoder.encode(chunk));
+    const { preview } = analyzer.finish();
+    const n = preview.flags.length;
+    expect(n).toBeGreaterThanOrEqual(DEFAULT_PREVIEW_MAX_VERTICES);
+    const shown = n.toLocaleString("en-US");
+    const blob = Buffer.from(encodePreview(preview));
+
+    const { context, page } = await newPage(browser);
+    await signInAs(page, "porter");
+    await page.route("**/api/analyses/*/preview", (route) =>
+      route.fulfill({ status: 200, body: blob, headers: { "content-type": "application/octet-stream", "content-length": String(blob.length), "x-preview-format": "PTVW" } }),
+    );
+    await page.goto("/view");
+    await page.getByTestId("view-revisions").getByRole("link", { name: "Street intake A" }).click();
+    await page.getByTestId("toolpath-viewer").waitFor({ timeout: 90_000 });
+    await expect.poll(() => page.getByTestId("toolpath-view-figures").textContent()).toContain(shown);
+    await expect.poll(() => canvasColours(page, "toolpath-canvas"), { timeout: 30_000 }).toBeGreaterThan(20);
+    await page.getByTestId("toolpath-scrubber").focus();
+    await page.keyboard.press("Home");
+    await expect.poll(() => page.getByTestId("scrub-position").textContent()).toContain(`point 1 of ${shown}`);
+    await page.keyboard.press("End");
+    await expect.poll(() => page.getByTestId("scrub-position").textContent()).toContain(`point ${shown} of ${shown}`);
+    await snap(page, "viewer-toolpath-200k");
     await context.close();
   });
 

@@ -1,5 +1,5 @@
 import { describe, expect, it } from "vitest";
-import { clampVertex, dashedSegments, groupSegments, playStep, scrubFraction, segmentIndex, segmentsUpTo, vertexAtLine } from "@/components/viewer/toolpath-segments";
+import { clampVertex, coarseSegments, dashedSegments, groupSegments, playStep, scrubFraction, segmentIndex, segmentsUpTo, vertexAtLine } from "@/components/viewer/toolpath-segments";
 import { analyzeToolpathText, generatePortProgram, PREVIEW_BREAK, PREVIEW_RAPID, PREVIEW_TOOL_SHIFT } from "@/lib/toolpath";
 
 const R = PREVIEW_RAPID;
@@ -86,5 +86,28 @@ describe("scrubber arithmetic", () => {
     expect(step * 20 * 60).toBeGreaterThanOrEqual(200_000);
     expect((step - 1) * 20 * 60).toBeLessThan(200_000);
     expect(playStep(10)).toBe(1);
+  });
+});
+
+describe("coarse stand-in while the camera moves", () => {
+  it("merges runs of consecutive segments, never across a gap", () => {
+    // Segments end at 1,2,3,4,5 (one run), then 8,9 (after a break or another tool's moves).
+    const c = coarseSegments(Uint32Array.from([1, 2, 3, 4, 5, 8, 9]), 4);
+    expect([...c.index]).toEqual([0, 4, 4, 5, 7, 9]);
+    expect([...c.ends]).toEqual([4, 5, 9]);
+  });
+
+  it("covers exactly the vertices of the full group, with about 1/k of its segments", () => {
+    const text = [...generatePortProgram({ lines: 3000, tools: 2, seed: 3 })].join("");
+    const { preview } = analyzeToolpathText(text);
+    for (const g of groupSegments(preview.flags)) {
+      const c = coarseSegments(g.ends, 4);
+      expect(c.ends.length).toBeGreaterThanOrEqual(Math.ceil(g.ends.length / 4));
+      // Every original segment lies inside exactly one merged one: [start, end] spans tile the group.
+      let covered = 0;
+      for (let m = 0; m < c.ends.length; m++) covered += segmentsUpTo(g.ends, c.index[2 * m + 1]) - segmentsUpTo(g.ends, c.index[2 * m]);
+      expect(covered).toBe(g.ends.length);
+      expect(c.ends.at(-1)).toBe(g.ends.at(-1));
+    }
   });
 });
