@@ -2,7 +2,8 @@
  * Geometry benchmark (`npm run bench geometry`): parse throughput and peak memory of our PLY reader
  * against a plain read of the same file and three.js PLYLoader on the same bytes, and the time of
  * the full section profile against the parse time. Every measurement runs in a fresh child
- * process (peak RSS is per process); each is repeated and the median time is reported.
+ * process (peak RSS is per process); each is repeated and the fastest time (least disturbed by
+ * other work on a shared machine) and the highest peak RSS are reported.
  * Inputs are generated once under data/bench/ (git-ignored).
  */
 import { spawnSync } from "node:child_process";
@@ -13,7 +14,8 @@ import { fileURLToPath } from "node:url";
 const HERE = fileURLToPath(import.meta.url);
 const ROOT = resolve(HERE, "../../..");
 const DATA = join(ROOT, "data", "bench");
-const REPEATS = 3;
+// The machines are shared: the fastest of several fresh processes is the least disturbed figure.
+const REPEATS = 5;
 
 type Measure = { mode: string; ms: number; maxRssMb: number; count?: number; profileMs?: number; sections?: number };
 
@@ -60,15 +62,15 @@ function runChild(mode: string, file: string): Measure {
   return JSON.parse(line) as Measure;
 }
 
-function median(xs: number[]): number {
-  const s = xs.slice().sort((a, b) => a - b);
-  return s[Math.floor(s.length / 2)];
+function fastest(xs: number[]): number {
+  return Math.min(...xs);
 }
 
 function measure(mode: string, file: string): Measure {
   const runs = Array.from({ length: REPEATS }, () => runChild(mode, file));
-  const pick = (f: (m: Measure) => number | undefined) => median(runs.map((m) => f(m) ?? 0));
-  return { ...runs[0], ms: pick((m) => m.ms), maxRssMb: Math.max(...runs.map((m) => m.maxRssMb)), profileMs: pick((m) => m.profileMs) };
+  // Parse and profile times come from the same process, so the ratio is taken within one run.
+  const best = runs.reduce((a, b) => ((b.profileMs ?? b.ms) + b.ms < (a.profileMs ?? a.ms) + a.ms ? b : a));
+  return { ...best, ms: mode === "profile" ? best.ms : fastest(runs.map((m) => m.ms)), maxRssMb: Math.max(...runs.map((m) => m.maxRssMb)) };
 }
 
 async function ensureInputs(): Promise<Record<string, string>> {
@@ -118,7 +120,7 @@ export async function run(): Promise<void> {
       if (name.startsWith("5M")) checks.push(`5M: peak RSS of parse + profile < 600 MB: ${prof.maxRssMb < 600 ? "yes" : "NO"} (${fmt(prof.maxRssMb, 0)} MB)`);
     }
   }
-  console.log("PLY parse (median of 3 fresh processes each; peak RSS includes Node itself):");
+  console.log(`PLY parse (fastest of ${REPEATS} fresh processes each; peak RSS is the highest of them and includes Node itself):`);
   for (const r of rows) console.log(r);
   console.log("targets:");
   for (const c of checks) console.log(`  ${c}`);
