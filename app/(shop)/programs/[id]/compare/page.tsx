@@ -10,6 +10,7 @@ import { revisionAnalyses } from "@/db/queries/programs";
 import { EVERYONE } from "@/lib/auth/roles";
 import { compareRevisions, type Delta, type PortReportLike, type ToolpathReportLike } from "@/lib/programs/compare";
 import { requirePageRole } from "../../../../_server/session";
+import { RevisionCharts } from "../../../view/revisions/compare/RevisionCharts";
 
 export const metadata = { title: "Compare revisions" };
 
@@ -135,6 +136,7 @@ export default async function ComparePage({ params, searchParams }: { params: Pr
             <EmptyState title="No section profile to compare.">Both revisions need a source scan with an analysed point cloud.</EmptyState>
           )}
         </Card>
+        <RevisionCharts a={a.revision.revision.id} b={b.revision.revision.id} parts={["bars", "flow"]} />
       </div>
     </>
   );
