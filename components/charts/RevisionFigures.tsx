@@ -50,7 +50,8 @@ const durationChange = (v: number | null) => (v === null ? "—" : Math.round(v)
 const minutes = (d: Delta) => ({ a: d.a === null ? null : d.a / 60, b: d.b === null ? null : d.b / 60 });
 const metres = (d: Delta) => ({ a: d.a === null ? null : d.a / 1000, b: d.b === null ? null : d.b / 1000 });
 
-export function RevisionFigures({ comparison: c, labelA, labelB }: { comparison: RevisionComparison; labelA: string; labelB: string }) {
+/** The paired bars, and (unless `barsOnly`, for pages that already list the figures) the table. */
+export function RevisionFigures({ comparison: c, labelA, labelB, barsOnly = false }: { comparison: RevisionComparison; labelA: string; labelB: string; barsOnly?: boolean }) {
   const rows: Array<{ label: string; d: Delta; show: (v: number | null) => string; diff: (v: number | null) => string }> = [
     { label: "Cycle time (estimate)", d: c.cycleTimeS, show: formatDuration, diff: durationChange },
     { label: "Feed time", d: c.feedTimeS, show: formatDuration, diff: durationChange },
@@ -67,7 +68,7 @@ export function RevisionFigures({ comparison: c, labelA, labelB }: { comparison:
         <PairedBars title="Time" unit="min" digits={1} labelA={labelA} labelB={labelB} rows={[{ name: "cycle", ...minutes(c.cycleTimeS) }, { name: "feed", ...minutes(c.feedTimeS) }, { name: "rapid", ...minutes(c.rapidTimeS) }]} />
         <PairedBars title="Path length" unit="m" digits={2} labelA={labelA} labelB={labelB} rows={[{ name: "cutting", ...metres(c.feedLengthMm) }, { name: "rapid", ...metres(c.rapidLengthMm) }]} />
       </div>
-      <table className="w-full text-left text-sm">
+      {!barsOnly && <table className="w-full text-left text-sm">
         <caption className="mb-1 text-left text-xs font-semibold uppercase tracking-wide text-ink-soft">Figures ({c.toolpathFiles.a} and {c.toolpathFiles.b} toolpath files)</caption>
         <thead>
           <tr className="border-b border-rule text-ink-soft">
@@ -90,7 +91,7 @@ export function RevisionFigures({ comparison: c, labelA, labelB }: { comparison:
             </tr>
           ))}
         </tbody>
-      </table>
+      </table>}
     </div>
   );
 }

@@ -16,12 +16,20 @@ import { revisionAnalyses } from "@/db/queries/programs";
 import { compareRevisions, type PortReportLike, type ToolpathReportLike } from "@/lib/programs/compare";
 import { revisionFlowSeries } from "../../_data/reads";
 
-export function RevisionCharts({ a, b }: { a: number; b: number }) {
+export type ChartPart = "figures" | "bars" | "profile" | "flow";
+
+/**
+ * `parts` picks what to show (all by default): "figures" = bars, figure table and tools; "bars" =
+ * the paired bars alone (for a page that already tabulates the figures); "profile"; "flow".
+ */
+export function RevisionCharts({ a, b, parts = ["figures", "profile", "flow"] }: { a: number; b: number; parts?: ChartPart[] }) {
   const ra = revisionAnalyses(db(), a);
   const rb = revisionAnalyses(db(), b);
   if (!ra || !rb) return <EmptyState title="One of these revisions does not exist." />;
-  const la = `Revision ${ra.revision.revision.letter}`;
-  const lb = `Revision ${rb.revision.revision.letter}`;
+  const sameProgram = ra.revision.program.id === rb.revision.program.id;
+  const nameOf = (r: typeof ra) => (sameProgram ? `Revision ${r.revision.revision.letter}` : `${r.revision.program.name} ${r.revision.revision.letter}`);
+  const la = nameOf(ra);
+  const lb = nameOf(rb);
   const cmp = compareRevisions(
     { toolpaths: ra.toolpaths as ToolpathReportLike[], scan: ra.scan as PortReportLike | null },
     { toolpaths: rb.toolpaths as ToolpathReportLike[], scan: rb.scan as PortReportLike | null },
@@ -33,17 +41,19 @@ export function RevisionCharts({ a, b }: { a: number; b: number }) {
   const flow = [...revisionFlowSeries(db(), a, ra.revision.revision.letter), ...revisionFlowSeries(db(), b, rb.revision.revision.letter)];
   return (
     <div className="flex flex-col gap-4" data-testid="revision-charts">
-      <Card title="Cycle time, paths and tools">
-        {cmp.toolpathFiles.a + cmp.toolpathFiles.b === 0 ? (
-          <EmptyState title="Neither revision has an analysed toolpath yet." />
-        ) : (
-          <div className="flex flex-col gap-5">
-            <RevisionFigures comparison={cmp} labelA={la} labelB={lb} />
-            <ToolsSideBySide comparison={cmp} labelA={la} labelB={lb} />
-          </div>
-        )}
-      </Card>
-      <Card title="Section profiles of the source scans">
+      {(parts.includes("figures") || parts.includes("bars")) && (
+        <Card title={parts.includes("figures") ? "Cycle time, paths and tools" : "Cycle time and paths"}>
+          {cmp.toolpathFiles.a + cmp.toolpathFiles.b === 0 ? (
+            <EmptyState title="Neither revision has an analysed toolpath yet." />
+          ) : (
+            <div className="flex flex-col gap-5">
+              <RevisionFigures comparison={cmp} labelA={la} labelB={lb} barsOnly={!parts.includes("figures")} />
+              {parts.includes("figures") && <ToolsSideBySide comparison={cmp} labelA={la} labelB={lb} />}
+            </div>
+          )}
+        </Card>
+      )}
+      {parts.includes("profile") && <Card title="Section profiles of the source scans">
         {scanA || scanB ? (
           <div className="flex flex-col gap-5">
             {sameScan && <p className="text-sm text-ink-soft">Both revisions were made from the same scan, so their profiles are the same line.</p>}
@@ -60,14 +70,14 @@ export function RevisionCharts({ a, b }: { a: number; b: number }) {
         ) : (
           <EmptyState title="No section profile to show.">A revision shows one when its source scan has an analysed point cloud.</EmptyState>
         )}
-      </Card>
-      <Card title="Flow curves of each revision's flow tests">
+      </Card>}
+      {parts.includes("flow") && <Card title="Flow curves of each revision's flow tests">
         {flow.length === 0 ? (
           <EmptyState title="No flow tests are recorded against these revisions yet.">Record a first-cut flow test and link it to the revision.</EmptyState>
         ) : (
           <FlowChart series={flow} title="Flow against lift, by revision" />
         )}
-      </Card>
+      </Card>}
     </div>
   );
 }
