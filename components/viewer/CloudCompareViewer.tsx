@@ -105,7 +105,7 @@ function CompareExplorer({ a, b, cloudA, cloudB }: CloudCompareViewerProps & { c
             <div className="flex gap-3 text-sm">
               <label className="flex items-center gap-2">
                 <input type="checkbox" checked={showA} onChange={(e) => setShowA(e.target.checked)} className="size-4 accent-copper" />
-                {a.label} (grey)
+                {a.label} (faint grey)
               </label>
               <label className="flex items-center gap-2">
                 <input type="checkbox" checked={showB} onChange={(e) => setShowB(e.target.checked)} className="size-4 accent-copper" />
@@ -114,7 +114,7 @@ function CompareExplorer({ a, b, cloudA, cloudB }: CloudCompareViewerProps & { c
             </div>
           </div>
           <Stage box={box} portAxis={axis} request={request} testId="compare-canvas" label={`${a.label} in grey and ${b.label} coloured by its distance from ${a.label}. The deviation figures are beside the view.`}>
-            {showA && <PointsObject positions={cloudA.positions} colour="#b9b2a6" size={1.5} opacity={0.6} />}
+            {showA && <PointsObject positions={cloudA.positions} colour="#8a8379" size={1} opacity={0.18} />}
             {showB && <PointsObject positions={cloudB.positions} colours={colours} colour="#57524b" size={2} />}
             <PolylineObject points={line} colour="#1d1c1a" onTop />
           </Stage>
@@ -190,9 +190,9 @@ function DeviationScale({ limit, summary, values }: { limit: number; summary: De
           <span key={v}>{v > 0 ? "+" : v < 0 ? "−" : ""}{formatNumber(Math.abs(v), limit < 1 ? 2 : 1)}</span>
         ))}
       </div>
-      <div className="flex justify-between text-[11px] text-ink-soft">
-        <span>less room in B (wall nearer the centerline)</span>
-        <span className="text-right">more room in B</span>
+      <div className="flex justify-between gap-3 text-[11px] text-ink-soft">
+        <span>− less room in B (wall nearer the centerline)</span>
+        <span className="text-right">+ more room in B</span>
       </div>
       {counts && total > 0 && (
         <table className="mt-1 w-full text-right font-mono text-[11px]">

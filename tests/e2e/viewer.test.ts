@@ -55,6 +55,13 @@ function collectScripts(page: Page): string[] {
   return bodies;
 }
 
+async function pickOption(select: ReturnType<Page["locator"]>, part: string) {
+  const labels = (await select.locator("option").allTextContents()).map((l) => l.trim());
+  const label = labels.find((l) => l.includes(part));
+  if (!label) throw new Error(`no option with "${part}" among ${labels.join(", ")}`);
+  await select.selectOption({ label });
+}
+
 // three.js keeps this text in its renderer's messages, whatever the minifier does to names.
 const THREE_MARK = "THREE.WebGLRenderer";
 
@@ -157,6 +164,38 @@ describe("3D views", () => {
     await page.keyboard.press("End");
     await expect.poll(() => page.getByTestId("scrub-position").textContent()).toContain(`point ${shown} of ${shown}`);
     await snap(page, "viewer-toolpath-200k");
+    await context.close();
+  });
+
+  it("compares two scans: deviation scale with numbers, profiles and their difference", async () => {
+    const { context, page } = await newPage(browser);
+    await signInAs(page, "porter");
+    await page.goto("/view");
+    const form = page.getByRole("form", { name: "Compare two scans" });
+    // The demo digitized one master, intake and exhaust: the only two scans there are to compare.
+    await pickOption(form.getByLabel("Scan A"), "M-4471-01 intake");
+    await pickOption(form.getByLabel("Scan B"), "M-4471-01 exhaust");
+    await form.getByRole("button", { name: "Compare the scans" }).click();
+    await page.getByTestId("cloud-compare-viewer").waitFor({ timeout: 90_000 });
+    // The deviation is measured in slices; its figures appear when every point is done.
+    await page.getByTestId("deviation-figures").waitFor({ timeout: 90_000 });
+    await expect.poll(() => canvasColours(page, "compare-canvas"), { timeout: 30_000 }).toBeGreaterThan(20);
+    expect(await page.getByTestId("deviation-scale").textContent()).toMatch(/more room in B/);
+    await page.getByTestId("area-difference-chart").waitFor();
+    await snap(page, "viewer-scan-compare");
+    await context.close();
+  });
+
+  it("fits a tablet-width screen", async () => {
+    const { context, page } = await newPage(browser, { width: 768, height: 1024 });
+    await signInAs(page, "machinist");
+    await page.goto("/view");
+    await page.getByTestId("view-scans").getByRole("row").filter({ hasText: "M-4471-01 · intake" }).getByRole("link").click();
+    await page.getByTestId("cloud-viewer").waitFor({ timeout: 90_000 });
+    await expect.poll(() => canvasColours(page, "cloud-canvas"), { timeout: 30_000 }).toBeGreaterThan(20);
+    // Nothing wider than the screen: the page does not scroll sideways.
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(768);
+    await snap(page, "viewer-scan-tablet");
     await context.close();
   });
 
