@@ -204,6 +204,7 @@ describe("3D views", () => {
     await signInAs(page, "auditor");
     await page.goto("/view");
     const form = page.getByRole("form", { name: "Compare two revisions" });
+    await snap(page, "viewer-index");
     await form.getByLabel("Revision A").selectOption({ label: "Street intake A" });
     await form.getByLabel("Revision B").selectOption({ label: "Street intake B" });
     await form.getByRole("button", { name: "Compare the revisions" }).click();
