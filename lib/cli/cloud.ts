@@ -115,7 +115,7 @@ async function analyze(args: string[], io: CliIo): Promise<number> {
     portKind,
   };
   const cloud = await readPointCloudFile(positionals[0], opts);
-  const { report } = analyzePort(cloud, analyzeOptions);
+  const { report } = analyzePort(cloud, { ...analyzeOptions, pointStations: false });
   if (values.json) io.out(JSON.stringify(values.outlines ? report : withoutOutlines(report)));
   else printReport(report, io);
   return 0;

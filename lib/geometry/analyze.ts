@@ -1,4 +1,4 @@
-import { fitCenterline, closestLength, pointAtLength, polylineLength, resamplePolyline, slicePolyline, subsample, transportFrames } from "./centerline";
+import { fitCenterline, closestLength, polylineLength, polylineSampler, resamplePolyline, slicePolyline, subsample, transportFrames } from "./centerline";
 import { GeometryInputError, type GeometryWarning } from "./errors";
 import { meshReport, type MeshReport } from "./mesh";
 import { equivalentDiameter, hydraulicDiameter, simplifyPolygon } from "./polygon";
@@ -20,6 +20,8 @@ export type AnalyzeOptions = {
   exit?: Vec3;
   /** Use this centerline instead of fitting one (comparison of two scans along the same planes). */
   centerline?: Vec3[];
+  /** Return each point's nearest station for colouring the preview (default true). */
+  pointStations?: boolean;
 };
 
 export type SectionResult = {
@@ -80,8 +82,9 @@ export type PortReport = {
 
 export type PortAnalysis = {
   report: PortReport;
-  /** Nearest station of every point (colouring the preview); same order as the input. */
-  pointStation: Uint16Array;
+  /** Nearest station of every point (colouring the preview), same order as the input; null when
+   * `pointStations: false` was asked for. */
+  pointStation: Uint16Array | null;
 };
 
 type CloudInput = { positions: Float32Array; count: number; faces?: Uint32Array; warnings?: GeometryWarning[] };
@@ -135,7 +138,7 @@ function applyUserEnds(pts: Vec3[], entry: Vec3 | undefined, exit: Vec3 | undefi
 }
 
 function stationFrames(line: Vec3[], step: number): StationFrames {
-  const total = polylineLength(line);
+  const { at, total } = polylineSampler(line);
   // A last station within 5 % of a step of the measured end still counts: the end itself is only
   // known to about the point spacing (≈ 0.1 mm).
   const n = Math.floor(total / step + 0.05) + 1;
@@ -144,8 +147,8 @@ function stationFrames(line: Vec3[], step: number): StationFrames {
   const tangents: Vec3[] = [];
   for (let k = 0; k < n; k++) {
     const s = k * step;
-    origins.push(pointAtLength(line, s));
-    tangents.push(normalize(sub(pointAtLength(line, Math.min(total, s + eps)), pointAtLength(line, Math.max(0, s - eps)))));
+    origins.push(at(s));
+    tangents.push(normalize(sub(at(Math.min(total, s + eps)), at(Math.max(0, s - eps)))));
   }
   const { u, v } = transportFrames(tangents);
   const flat = (vs: Vec3[]) => Float64Array.from(vs.flat());
@@ -248,7 +251,7 @@ export function analyzePort(cloud: CloudInput, options: AnalyzeOptions = {}): Po
   const h = Math.min(step / 2, Math.max(0.2, (3000 * lengthMm) / (2 * count), 1.5 * spacing));
   const perSection = (count * 2 * h) / lengthMm;
   const bins = perSection >= 256 * 6 ? 256 : perSection >= 128 * 5 ? 128 : 64;
-  const { sections: raw, pointStation } = sectionPass(positions, count, frames, { bins, halfWidthMm: h, bounds: stats.bounds });
+  const { sections: raw, pointStation } = sectionPass(positions, count, frames, { bins, halfWidthMm: h, bounds: stats.bounds, pointStations: options.pointStations ?? true });
 
   // A tube shows a full ring of wall in (nearly) every section; a blob or a sheet does not.
   const median = (xs: number[]) => {

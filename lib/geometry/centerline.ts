@@ -34,20 +34,38 @@ export function polylineLength(pts: Vec3[]): number {
 
 /** Points at equal arc-length spacing (the last spacing absorbs the remainder), ends kept. */
 export function resamplePolyline(pts: Vec3[], spacing: number): Vec3[] {
-  const total = polylineLength(pts);
+  const { at, total } = polylineSampler(pts);
   if (pts.length < 2 || total === 0) return pts.slice();
   const n = Math.max(2, Math.round(total / spacing) + 1);
-  return Array.from({ length: n }, (_, k) => pointAtLength(pts, (total * k) / (n - 1)));
+  return Array.from({ length: n }, (_, k) => at((total * k) / (n - 1)));
 }
 
+/** Point at arc length s (clamped to the ends). */
 export function pointAtLength(pts: Vec3[], s: number): Vec3 {
-  let acc = 0;
-  for (let i = 1; i < pts.length; i++) {
-    const seg = distance(pts[i - 1], pts[i]);
-    if (acc + seg >= s || i === pts.length - 1) return lerp(pts[i - 1], pts[i], seg > 0 ? Math.min(1, Math.max(0, (s - acc) / seg)) : 0);
-    acc += seg;
-  }
-  return pts[0];
+  return polylineSampler(pts).at(s);
+}
+
+/** Arc-length lookup with cumulative lengths and binary search, for many queries on one line. */
+export function polylineSampler(pts: Vec3[]): { at: (s: number) => Vec3; total: number } {
+  const n = pts.length;
+  const cum = new Float64Array(Math.max(n, 1));
+  for (let i = 1; i < n; i++) cum[i] = cum[i - 1] + distance(pts[i - 1], pts[i]);
+  const total = n > 0 ? cum[n - 1] : 0;
+  const at = (s: number): Vec3 => {
+    if (n === 0) return [0, 0, 0];
+    if (n === 1 || s <= 0) return pts[0];
+    if (s >= total) return pts[n - 1];
+    let lo = 0;
+    let hi = n - 1;
+    while (hi - lo > 1) {
+      const mid = (lo + hi) >> 1;
+      if (cum[mid] <= s) lo = mid;
+      else hi = mid;
+    }
+    const seg = cum[hi] - cum[lo];
+    return lerp(pts[lo], pts[hi], seg > 0 ? (s - cum[lo]) / seg : 0);
+  };
+  return { at, total };
 }
 
 /**

@@ -107,9 +107,9 @@ export function pointDeviation(a: CloudInput, b: CloudInput, maxQuery = 200_000,
 }
 
 export function compareScans(a: CloudInput, b: CloudInput, options: CompareOptions = {}): ScanComparison {
-  const ra = analyzePort(a, options).report;
+  const ra = analyzePort(a, { ...options, pointStations: false }).report;
   const centerline: Vec3[] = ra.centerline.points;
-  const rb = analyzePort(b, { ...options, entry: undefined, exit: undefined, centerline }).report;
+  const rb = analyzePort(b, { ...options, entry: undefined, exit: undefined, centerline, pointStations: false }).report;
   const byStation = new Map(rb.sections.map((s) => [s.stationMm.toFixed(6), s]));
   const stations: StationDifference[] = [];
   for (const sa of ra.sections) {

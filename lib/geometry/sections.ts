@@ -48,13 +48,15 @@ export type RawSection = {
 };
 
 export type SectionPassOptions = {
+  /** Also return each point's nearest station (the preview's colours). */
+  pointStations: boolean;
   bins: number;
   halfWidthMm: number;
   bounds: Bounds;
 };
 
 /** Maps grid cells to their nearest station so each point finds its plane in O(1). */
-function nearestStationGrid(frames: StationFrames, bounds: Bounds, maxCells = 32_768) {
+function nearestStationGrid(frames: StationFrames, bounds: Bounds, maxCells = 16_384) {
   const pad = 1;
   const min: Vec3 = [bounds.min[0] - pad, bounds.min[1] - pad, bounds.min[2] - pad];
   const size: Vec3 = [bounds.max[0] - bounds.min[0] + 2 * pad, bounds.max[1] - bounds.min[1] + 2 * pad, bounds.max[2] - bounds.min[2] + 2 * pad];
@@ -100,7 +102,7 @@ export function sectionPass(
   count: number,
   frames: StationFrames,
   options: SectionPassOptions,
-): { sections: RawSection[]; pointStation: Uint16Array } {
+): { sections: RawSection[]; pointStation: Uint16Array | null } {
   const ns = frames.stationMm.length;
   if (ns > 65_535) throw new Error("too many stations");
   const K = options.bins;
@@ -110,7 +112,7 @@ export function sectionPass(
   const nrm = frames.normal;
   const U = frames.u;
   const V = frames.v;
-  const pointStation = new Uint16Array(count);
+  const pointStation = options.pointStations ? new Uint16Array(count) : null;
   const inv = 1 / cell;
   const mx = min[0];
   const my = min[1];
@@ -125,32 +127,31 @@ export function sectionPass(
   const binCount = new Uint32Array(ns * K);
   const slabCount = new Uint32Array(ns);
   const twoPi = 2 * Math.PI;
+  // Plane offsets d_j = o_j·n_j, so a signed distance is x·n − d (one fewer subtraction per axis).
+  const d = new Float64Array(ns);
+  for (let j = 0; j < ns; j++) d[j] = o[3 * j] * nrm[3 * j] + o[3 * j + 1] * nrm[3 * j + 1] + o[3 * j + 2] * nrm[3 * j + 2];
+  const nxny = nx * ny;
   for (let i = 0, p = 0; i < count; i++, p += 3) {
     const x = positions[p];
     const y = positions[p + 1];
     const z = positions[p + 2];
-    // The grid is padded past the bounds, so these are non-negative and truncation is floor.
-    let ix = ((x - mx) * inv) | 0;
-    let iy = ((y - my) * inv) | 0;
-    let iz = ((z - mz) * inv) | 0;
-    ix = ix < 0 ? 0 : ix >= nx ? nx - 1 : ix;
-    iy = iy < 0 ? 0 : iy >= ny ? ny - 1 : iy;
-    iz = iz < 0 ? 0 : iz >= nz ? nz - 1 : iz;
-    const g = grid[(iz * ny + iy) * nx + ix];
+    // The grid is padded past the bounds of these very points: indices are in range, and
+    // truncation is floor because the offsets are positive.
+    const g = grid[((z - mz) * inv | 0) * nxny + ((y - my) * inv | 0) * nx + ((x - mx) * inv | 0)];
     // The grid guess is within a station or two: walk towards the plane the point is closest to.
     let best = g;
-    let sb = (x - o[3 * g]) * nrm[3 * g] + (y - o[3 * g + 1]) * nrm[3 * g + 1] + (z - o[3 * g + 2]) * nrm[3 * g + 2];
+    let sb = x * nrm[3 * g] + y * nrm[3 * g + 1] + z * nrm[3 * g + 2] - d[g];
     let bestS = sb < 0 ? -sb : sb;
     const dir = sb > 0 ? 1 : -1;
     for (let j = g + dir, k = 0; k < 3 && j >= 0 && j < ns; j += dir, k++) {
-      const s = (x - o[3 * j]) * nrm[3 * j] + (y - o[3 * j + 1]) * nrm[3 * j + 1] + (z - o[3 * j + 2]) * nrm[3 * j + 2];
+      const s = x * nrm[3 * j] + y * nrm[3 * j + 1] + z * nrm[3 * j + 2] - d[j];
       const a = s < 0 ? -s : s;
       if (a >= bestS) break;
       bestS = a;
       best = j;
       sb = s;
     }
-    pointStation[i] = best;
+    if (pointStation) pointStation[i] = best;
     if (bestS > h) continue;
     const j3 = 3 * best;
     const dx = x - o[j3];

@@ -32,7 +32,8 @@ describe("straight cylinder r = 15 mm, 100 mm long", () => {
   const shape = straightTube(100, () => circleOutline(r));
   const cloud = sampleTubeCloud(shape, { points: 150_000, seed: 3 });
   const valve = 30 / 0.88;
-  const { report, pointStation } = analyzePort(cloud, { valveDiameterMm: valve });
+  const { report, pointStation: stations } = analyzePort(cloud, { valveDiameterMm: valve });
+  const pointStation = stations!;
 
   it("every complete section has area πr² and the centerline is the axis", () => {
     const exact = Math.PI * r * r;
@@ -75,7 +76,8 @@ describe("straight cylinder r = 15 mm, 100 mm long", () => {
     }
   });
 
-  it("gives each point its nearest station", () => {
+  it("gives each point its nearest station, only when asked", () => {
+    expect(analyzePort(cloud, { pointStations: false }).pointStation).toBeNull();
     expect(pointStation.length).toBe(cloud.count);
     const entryAtZero = report.centerline.entry[0] < 50;
     for (let i = 0; i < cloud.count; i += 997) {

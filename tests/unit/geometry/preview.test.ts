@@ -2,7 +2,9 @@ import { describe, expect, it } from "vitest";
 import { analyzePort, buildPreviewCloud, decodePreviewCloud, encodePreviewCloud, PREVIEW_HEADER_BYTES, intakePortShape, sampleTubeCloud } from "@/lib/geometry/index";
 
 const cloud = sampleTubeCloud(intakePortShape({ fin: true }), { points: 60_000, seed: 4 });
-const { report, pointStation } = analyzePort(cloud);
+const analysis = analyzePort(cloud);
+const report = analysis.report;
+const pointStation = analysis.pointStation!;
 
 describe("preview cloud", () => {
   it("decimates to the budget with real probe points and their stations", () => {
