@@ -31,4 +31,20 @@ describe("ParallelHasher", () => {
       await hasher.close();
     }
   });
+
+  it("takes back an unused buffer and refuses buffers from outside its pool", async () => {
+    const hasher = new ParallelHasher(64, 1);
+    try {
+      const buffer = await hasher.acquire();
+      hasher.release(buffer);
+      const again = await hasher.acquire(); // would wait forever had release lost the slot
+      expect(again).toBe(buffer);
+      expect(() => hasher.submit(new Uint8Array(64), 10)).toThrow(/not a buffer from this pool/);
+      again.set([1, 2, 3]);
+      hasher.submit(again, 3);
+      expect(await hasher.digest()).toBe(createHash("sha256").update(Uint8Array.of(1, 2, 3)).digest("hex"));
+    } finally {
+      await hasher.close();
+    }
+  });
 });
