@@ -97,7 +97,9 @@ export async function startStack(options: StackOptions = {}): Promise<RunningSta
   });
 
   let app: ChildProcess | undefined;
+  let stopping = false;
   const stop = async () => {
+    stopping = true;
     const child = app;
     if (child && child.exitCode === null) {
       const exited = new Promise((r) => child.once("exit", r));
@@ -136,7 +138,9 @@ export async function startStack(options: StackOptions = {}): Promise<RunningSta
       const keep = (b: Buffer) => (tail = (tail + b.toString()).slice(-4000));
       started.stdout?.on("data", keep);
       started.stderr?.on("data", keep);
-      started.once("exit", (code) => code && code !== 0 && process.stderr.write(`app exited (${code}):\n${tail}\n`));
+      started.once("exit", (code) => {
+        if (!stopping && code) process.stderr.write(`app exited (${code}):\n${tail}\n`);
+      });
     }
     await waitForHealth(url, started);
     return { url, env, fakes, stop };
