@@ -120,6 +120,8 @@ export async function startStack(options: StackOptions = {}): Promise<RunningSta
       NEXTAUTH_URL: url,
       NEXTAUTH_SECRET: process.env.NEXTAUTH_SECRET ?? loadOrCreateSecret(dataDir),
       NEXT_TELEMETRY_DISABLED: "1",
+      // The SDK version is pinned; its notice about future releases needing Node 22 is known (README).
+      AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED: "true",
       ...options.extraEnv,
     };
     runStep("migrating the database", tsxArgs("db/migrate.ts"), env, show);
