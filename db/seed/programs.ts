@@ -49,6 +49,7 @@ async function addToolpath(db: Db, store: Storage, who: Actor, revisionId: numbe
   await analyse(db, store, analysisId, fileName);
 }
 
+// Runner entries wider than the throat, so the smallest section sits at the throat as in a real port.
 async function addCloud(db: Db, store: Storage, who: Actor, scanId: number, fileName: string, shape: Parameters<typeof intakePortShape>[0], seed: number) {
   const cloud = sampleTubeCloud(intakePortShape(shape), { points: 240_000, seed, noiseMm: 0.01 });
   const { analysisId } = await ingestFile(db, store, who, { kind: "point_cloud", fileName, scanId, source: writePly({ positions: cloud.positions, count: cloud.count }) });
@@ -85,8 +86,8 @@ export async function seedPrograms(db: Db, ctx: Ctx, store: Storage = storage())
   await moveMaster(db, porter, m4471.id, { to: "ready_to_digitize" }, opts);
   const scanIn = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: ctx.library.machineId, port: "intake", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-24", notes: "Cylinder 1 intake; stylus calibrated on the ring gauge before the run." });
   const scanEx = createScan(db, machinist, { masterId: m4471.id, plateId: plate4471, machineId: ctx.library.machineId, port: "exhaust", stylusDiameterMm: 2, pointSpacingMm: 0.25, scannedOn: "2025-02-25", notes: "Cylinder 1 exhaust." });
-  await addCloud(db, store, machinist, scanIn.id, "M-4471-01 intake cyl1.ply", { valveDiameterMm: valves.intakeValveMm, throatPercent: 88, bendDeg: 68 }, 41);
-  await addCloud(db, store, machinist, scanEx.id, "M-4471-01 exhaust cyl1.ply", { valveDiameterMm: valves.exhaustValveMm, throatPercent: 86, bendDeg: 55, entryWidthMm: 36, entryHeightMm: 30, runnerMm: 30 }, 42);
+  await addCloud(db, store, machinist, scanIn.id, "M-4471-01 intake cyl1.ply", { valveDiameterMm: valves.intakeValveMm, throatPercent: 88, bendDeg: 68, entryWidthMm: 54, entryHeightMm: 44 }, 41);
+  await addCloud(db, store, machinist, scanEx.id, "M-4471-01 exhaust cyl1.ply", { valveDiameterMm: valves.exhaustValveMm, throatPercent: 86, bendDeg: 55, entryWidthMm: 42, entryHeightMm: 35, runnerMm: 30 }, 42);
 
   const streetIn = createProgram(db, machinist, { headTypeId: ht4471, port: "intake", name: "Street intake", notes: "Street/strip port for the 5.8 pushrod V8." });
   const inA = createRevision(db, machinist, streetIn.id, { sourceScanId: scanIn.id, changeNote: "First program from scan of M-4471-01; roughing with the 10 mm ball, finish with the 6 mm lollipop." });
