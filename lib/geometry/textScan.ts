@@ -99,7 +99,8 @@ export class TokenScanner {
   line = 1;
   tokStart = 0;
   tokEnd = 0;
-  private limit = 0;
+  /** End of the part of the window that holds only whole tokens. */
+  limit = 0;
 
   constructor(
     readonly cur: ByteCursor,

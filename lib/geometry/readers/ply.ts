@@ -1,7 +1,7 @@
 import type { ByteCursor } from "../bytes";
 import { GeometryInputError, type GeometryWarning } from "../errors";
 import { GrowableUint32 } from "../growable";
-import { TokenScanner } from "../textScan";
+import { bytesToText, parseDecimal, TokenScanner } from "../textScan";
 import type { PointCloud } from "../types";
 import { MAX_PLY_HEADER, PLY_TYPE_SIZE, parsePlyHeader, type PlyElement, type PlyHeader, type PlyScalarType } from "./plyHeader";
 import { findNonFinite } from "./finite";
@@ -275,9 +275,62 @@ async function readVariableRecords(cur: ByteCursor, el: PlyElement, le: boolean,
   }
 }
 
+/**
+ * Vertices whose properties are all scalars (the usual case): a tight loop over the bytes that
+ * parses only x, y and z and merely steps over the other tokens.
+ */
+async function readAsciiScalarVertices(sc: TokenScanner, el: PlyElement, ctx: Ctx): Promise<void> {
+  const np = el.properties.length;
+  const want = new Int8Array(np).fill(-1);
+  want[ctx.plan.xi] = 0;
+  want[ctx.plan.yi] = 1;
+  want[ctx.plan.zi] = 2;
+  const out = ctx.positions;
+  const scale = ctx.scale;
+  const cur = sc.cur;
+  let rec = 0;
+  let k = 0;
+  let base = 0;
+  while (rec < el.count) {
+    const b = cur.buf;
+    const lim = sc.limit;
+    let i = cur.pos;
+    let line = sc.line;
+    while (rec < el.count) {
+      while (i < lim && b[i] <= 32) {
+        if (b[i] === 10) line++;
+        i++;
+      }
+      if (i >= lim) break;
+      const start = i;
+      while (i < lim && b[i] > 32) i++;
+      const w = want[k];
+      if (w >= 0) {
+        const v = parseDecimal(b, start, i);
+        if (v !== v) {
+          sc.line = line;
+          throw new GeometryInputError("bad-number", `PLY line ${line}: "${bytesToText(b, start, i).slice(0, 40)}" is not a number`);
+        }
+        out[base + w] = v * scale;
+      }
+      if (++k === np) {
+        k = 0;
+        base += 3;
+        rec++;
+      }
+    }
+    cur.pos = i;
+    sc.line = line;
+    if (rec < el.count && !(await sc.refill())) {
+      throw new GeometryInputError("truncated", `PLY: the file ends after ${rec} of ${el.count} "${el.name}" records`);
+    }
+  }
+}
+
 async function readAsciiElement(sc: TokenScanner, el: PlyElement, isVertex: boolean, isFace: boolean, ctx: Ctx): Promise<void> {
   const props = el.properties;
   if (props.length === 0 || el.count === 0) return;
+  if (isVertex && props.every((p) => p.kind === "scalar")) return readAsciiScalarVertices(sc, el, ctx);
   const { xi, yi, zi } = ctx.plan;
   const out = ctx.positions;
   const s = ctx.scale;
