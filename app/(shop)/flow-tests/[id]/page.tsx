@@ -48,6 +48,13 @@ export default async function FlowTestPage({ params }: { params: Promise<{ id: s
   const related = relatedFlowTests(db(), test)
     .map((t) => seriesOf(t))
     .filter((s): s is FlowSeries => s !== null);
+  const subjectHref = test.masterId
+    ? `/masters/${test.masterId}`
+    : test.revisionId && test.programId
+      ? `/programs/${test.programId}/revisions/${test.revisionId}`
+      : test.headId
+        ? `/heads/${test.headId}`
+        : null;
   const linkFilter = test.masterId ? `masterId=${test.masterId}` : test.revisionId ? `revisionId=${test.revisionId}` : test.headId ? `headId=${test.headId}` : null;
 
   return (
@@ -63,6 +70,11 @@ export default async function FlowTestPage({ params }: { params: Promise<{ id: s
         {linkFilter && (
           <Link href={`/flow-tests?${linkFilter}`} className="text-sm text-copper underline underline-offset-2 print:hidden">
             All tests of {test.subjectLabel}
+          </Link>
+        )}
+        {subjectHref && (
+          <Link href={subjectHref} className="text-sm text-copper underline underline-offset-2 print:hidden">
+            Open {test.subjectLabel}
           </Link>
         )}
       </div>
