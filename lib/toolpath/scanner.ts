@@ -294,6 +294,10 @@ export class BlockScanner {
           problemAt = letter;
           break;
         }
+        // Measured (1M-line bench file, in-memory scan, A/B runs): neither a multiply by 10^-k in
+        // place of this division, nor a branch-free finiteness test, nor reading four decimals at
+        // once as a 32-bit word changed the scan time; profilers pin samples on the divide, but it
+        // is not the bottleneck. The division by an exact power of ten keeps values correctly rounded.
         let value = decimals < POW10.length ? mantissa / POW10[decimals] : mantissa / 10 ** decimals;
         if (negative) value = -value;
         if (value - value !== 0) {
