@@ -204,8 +204,28 @@ function warmUpOnce(): void {
     const analyzer = new ToolpathAnalyzer({ previewMaxVertices: 64 });
     analyzer.push(sample);
     analyzer.finish();
+    warmUpPreviewRefilter();
   } catch {
     // only a speed-up: an analysis never depends on it
+  }
+}
+
+/**
+ * The preview's refilter first runs deep inside a big file, on a full buffer of 200 000
+ * vertices; unoptimised, that first pass costs several times a later one. Twenty tiny
+ * decimators that each overflow a few times get it compiled up front.
+ */
+function warmUpPreviewRefilter(): void {
+  const point = new Float64Array(3);
+  for (let k = 0; k < 20; k++) {
+    const decimator = new PreviewDecimator(16);
+    for (let i = 0; i < 64; i++) {
+      point[0] = i;
+      point[1] = (i * 7) % 5;
+      point[2] = i & 1;
+      decimator.add(point, 0, i);
+    }
+    decimator.finish([]);
   }
 }
 
