@@ -63,6 +63,8 @@ export class PreviewDecimator {
       const dx = apx - t * abx;
       const dy = apy - t * aby;
       const dz = apz - t * abz;
+      // Measured (1M-line file, 9 A/B processes of 8 in-memory passes): rejecting on the squared
+      // distance before the square root (a third of the points are rejected) stayed within noise.
       const total = this.acc[0] + Math.sqrt(dx * dx + dy * dy + dz * dz);
       if (total <= this.tolerance) {
         this.acc[0] = total;

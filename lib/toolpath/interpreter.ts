@@ -710,6 +710,8 @@ export class Interpreter implements BlockSink {
    * Time and bookkeeping of a cutting move: F applies along the XYZ path when X, Y or Z moves,
    * else to the rotary motion in deg/min as √(dA² + dB² + dC²) (§2.1.2.5); in G93 the move
    * lasts 1/F minutes (§3.5.19).
+   * Too big to be inlined into plainStraight; a small inlinable copy for the common case
+   * (tool in, spindle on, G94) measured within noise, so there is one version.
    */
   private cut(line: number, hasF: boolean): void {
     let tool = this.tools.active;

@@ -240,6 +240,7 @@ export class BlockScanner {
           while (c === 32 || c === 9) c = buf[++i];
         }
         // Fast path: digits, an optional point, digits — the way CAM writes numbers.
+        // (A single unsigned compare per digit, `(c - 48) >>> 0 < 10`, measured no faster.)
         let mantissa = 0;
         const intStart = i;
         while (c >= 48 && c <= 57) {
