@@ -1,7 +1,7 @@
 import Link from "next/link";
+import { ComparePicker } from "@/components/viewer/ComparePicker";
 import { AnalysisBadge, RevisionBadge } from "@/components/library/StageBadge";
 import { formatDuration } from "@/components/programs/format";
-import { buttonClass } from "@/components/ui/Button";
 import { Card, EmptyState, PageHeader } from "@/components/ui/Card";
 import { formatDate } from "@/components/ui/format";
 import { db } from "@/db/client";
@@ -11,7 +11,6 @@ import { viewerIndex } from "./_data/reads";
 
 export const metadata = { title: "3D views" };
 
-const SELECT = "min-h-10 rounded-md border border-rule bg-card px-2 text-sm";
 
 export default async function ViewIndexPage() {
   await requirePageRole(EVERYONE, "/view");
@@ -59,31 +58,13 @@ export default async function ViewIndexPage() {
                   ))}
                 </tbody>
               </table>
-              <form action="/view/scans/compare" className="flex flex-wrap items-end gap-2" aria-label="Compare two scans">
-                <label className="flex flex-col gap-1 text-xs font-semibold text-ink-soft">
-                  Scan A
-                  <select name="a" className={SELECT} required defaultValue={analysedScans[1]?.id ?? analysedScans[0]?.id}>
-                    {analysedScans.map((s) => (
-                      <option key={s.id} value={s.id}>
-                        S-{s.id} {s.masterLabel} {s.port}
-                      </option>
-                    ))}
-                  </select>
-                </label>
-                <label className="flex flex-col gap-1 text-xs font-semibold text-ink-soft">
-                  Scan B
-                  <select name="b" className={SELECT} required defaultValue={analysedScans[0]?.id}>
-                    {analysedScans.map((s) => (
-                      <option key={s.id} value={s.id}>
-                        S-{s.id} {s.masterLabel} {s.port}
-                      </option>
-                    ))}
-                  </select>
-                </label>
-                <button type="submit" className={buttonClass("secondary")} disabled={analysedScans.length < 2}>
-                  Compare the scans
-                </button>
-              </form>
+              <ComparePicker
+                action="/view/scans/compare"
+                noun={{ one: "Scan", many: "scans" }}
+                options={analysedScans.map((s) => ({ value: s.id, label: `S-${s.id} ${s.masterLabel} ${s.port}` }))}
+                defaultA={analysedScans[1]?.id ?? analysedScans[0]?.id}
+                defaultB={analysedScans[0]?.id}
+              />
             </div>
           )}
         </Card>
@@ -123,31 +104,13 @@ export default async function ViewIndexPage() {
                   ))}
                 </tbody>
               </table>
-              <form action="/view/revisions/compare" className="flex flex-wrap items-end gap-2" aria-label="Compare two revisions">
-                <label className="flex flex-col gap-1 text-xs font-semibold text-ink-soft">
-                  Revision A
-                  <select name="a" className={SELECT} required defaultValue={analysedRevisions[1]?.id ?? analysedRevisions[0]?.id}>
-                    {revisions.map((r) => (
-                      <option key={r.id} value={r.id}>
-                        {r.programName} {r.letter}
-                      </option>
-                    ))}
-                  </select>
-                </label>
-                <label className="flex flex-col gap-1 text-xs font-semibold text-ink-soft">
-                  Revision B
-                  <select name="b" className={SELECT} required defaultValue={analysedRevisions[0]?.id}>
-                    {revisions.map((r) => (
-                      <option key={r.id} value={r.id}>
-                        {r.programName} {r.letter}
-                      </option>
-                    ))}
-                  </select>
-                </label>
-                <button type="submit" className={buttonClass("secondary")} disabled={revisions.length < 2}>
-                  Compare the revisions
-                </button>
-              </form>
+              <ComparePicker
+                action="/view/revisions/compare"
+                noun={{ one: "Revision", many: "revisions" }}
+                options={revisions.map((r) => ({ value: r.id, label: `${r.programName} ${r.letter}` }))}
+                defaultA={analysedRevisions[1]?.id ?? analysedRevisions[0]?.id}
+                defaultB={analysedRevisions[0]?.id}
+              />
             </div>
           )}
         </Card>
