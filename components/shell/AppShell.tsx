@@ -1,6 +1,7 @@
 import Link from "next/link";
 import type { Actor } from "@/lib/auth/guard";
 import { ROLE_LABEL } from "@/lib/auth/roles";
+import { CollapsibleNav } from "./CollapsibleNav";
 import { navFor } from "./nav";
 import { NavLinks } from "./NavLinks";
 import { SignOutButton } from "./SignOutButton";
@@ -28,12 +29,9 @@ export function AppShell({ actor, children }: { actor: Actor; children: React.Re
             <Wordmark />
           </Link>
         </div>
-        <details className="group lg:open" open>
-          <summary className="cursor-pointer list-none px-4 pb-2 text-sm text-paper/70 lg:hidden">Menu</summary>
-          <div className="px-2 pb-4">
-            <NavLinks groups={navFor(actor.role)} />
-          </div>
-        </details>
+        <CollapsibleNav>
+          <NavLinks groups={navFor(actor.role)} />
+        </CollapsibleNav>
         <div className="border-t border-paper/15 px-4 py-3 text-sm">
           <p className="font-semibold text-white" data-testid="signed-in-name">
             {actor.name}
