@@ -16,6 +16,10 @@ import type { AnalyzeOptions, RotaryAxis, ToolpathAnalysis, ToolpathReport } fro
 import { WarningLog } from "./warnings";
 
 export const DEFAULT_PREVIEW_MAX_VERTICES = 200_000;
+/**
+ * Measured on the 1M-line file (8 alternating A/B fresh processes): 256 KiB reads were no faster
+ * and 4 MiB reads (a quarter of the hash updates) about 12 ms slower in wall time.
+ */
 const READ_BUFFER_BYTES = 1 << 20;
 /**
  * Files at least this big are hashed on a second thread. Starting the thread costs about as
