@@ -244,40 +244,13 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
         <Card title="Bench and air">
           <div className="grid gap-4 sm:grid-cols-2">
             <Field label="Bench depression" htmlFor="ft-depression" error={err("depression")} hint="28 inH₂O is the usual test depression">
-              <div className="flex gap-1">
-                <input id="ft-depression" inputMode="decimal" className={`${inputClass(!!errors.depression)} w-full`} {...num("depression")} />
-                <select aria-label="Depression unit" className={inputClass()} {...register("depressionUnit")}>
-                  {PRESSURE_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {PRESSURE_UNIT_LABEL[u]}
-                    </option>
-                  ))}
-                </select>
-              </div>
+              <ValueWithUnit id="ft-depression" invalid={!!errors.depression} input={num("depression")} unitLabel="Depression unit" unit={register("depressionUnit")} units={PRESSURE_UNITS} labels={PRESSURE_UNIT_LABEL} />
             </Field>
             <Field label="Air temperature" htmlFor="ft-temp" error={err("ambient.temperature")} hint="leave the air empty for standard air">
-              <div className="flex gap-1">
-                <input id="ft-temp" inputMode="decimal" className={`${inputClass(!!err("ambient.temperature"))} w-full`} {...num("ambient.temperature")} />
-                <select aria-label="Temperature unit" className={inputClass()} {...register("ambient.temperatureUnit")}>
-                  {TEMPERATURE_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {TEMPERATURE_UNIT_LABEL[u]}
-                    </option>
-                  ))}
-                </select>
-              </div>
+              <ValueWithUnit id="ft-temp" invalid={!!err("ambient.temperature")} input={num("ambient.temperature")} unitLabel="Temperature unit" unit={register("ambient.temperatureUnit")} units={TEMPERATURE_UNITS} labels={TEMPERATURE_UNIT_LABEL} />
             </Field>
             <Field label="Barometric pressure" htmlFor="ft-baro" error={err("ambient.pressure")} hint="station pressure, not corrected to sea level">
-              <div className="flex gap-1">
-                <input id="ft-baro" inputMode="decimal" className={`${inputClass(!!err("ambient.pressure"))} w-full`} {...num("ambient.pressure")} />
-                <select aria-label="Barometric pressure unit" className={inputClass()} {...register("ambient.pressureUnit")}>
-                  {PRESSURE_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {PRESSURE_UNIT_LABEL[u]}
-                    </option>
-                  ))}
-                </select>
-              </div>
+              <ValueWithUnit id="ft-baro" invalid={!!err("ambient.pressure")} input={num("ambient.pressure")} unitLabel="Barometric pressure unit" unit={register("ambient.pressureUnit")} units={PRESSURE_UNITS} labels={PRESSURE_UNIT_LABEL} />
             </Field>
             <Field label="Relative humidity, %" htmlFor="ft-rh" error={err("ambient.relativeHumidityPercent")} hint="dry air is assumed when empty">
               <input id="ft-rh" inputMode="decimal" className={inputClass(!!err("ambient.relativeHumidityPercent"))} {...num("ambient.relativeHumidityPercent")} />
@@ -288,31 +261,13 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
         <Card title="Valve and port">
           <div className="grid gap-4 sm:grid-cols-2">
             <Field label="Valve diameter" htmlFor="ft-valve" error={err("valveDiameter")} hint={headType ? `filled from ${headType.castingNumber}; change it if the valve differs` : undefined}>
-              <div className="flex gap-1">
-                <input id="ft-valve" inputMode="decimal" className={`${inputClass(!!errors.valveDiameter)} w-full`} {...num("valveDiameter")} />
-                <select aria-label="Unit of valve and seat" className={inputClass()} {...register("lengthUnit")}>
-                  {LIFT_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {LENGTH_UNIT_LABEL[u]}
-                    </option>
-                  ))}
-                </select>
-              </div>
+              <ValueWithUnit id="ft-valve" invalid={!!errors.valveDiameter} input={num("valveDiameter")} unitLabel="Unit of valve and seat" unit={register("lengthUnit")} units={LIFT_UNITS} labels={LENGTH_UNIT_LABEL} />
             </Field>
             <Field label={`Seat ID (${LENGTH_UNIT_LABEL[values.lengthUnit ?? "mm"]})`} htmlFor="ft-seat" error={err("seatDiameter")} hint="inner seat diameter, for Cd on the seat area">
               <input id="ft-seat" inputMode="decimal" className={inputClass(!!errors.seatDiameter)} {...num("seatDiameter")} />
             </Field>
             <Field label="Minimum section" htmlFor="ft-section" error={err("minSectionArea")} hint="optional; from a scan or by hand">
-              <div className="flex gap-1">
-                <input id="ft-section" inputMode="decimal" className={`${inputClass(!!errors.minSectionArea)} w-full`} {...num("minSectionArea")} />
-                <select aria-label="Area unit" className={inputClass()} {...register("areaUnit")}>
-                  {AREA_UNITS.map((u) => (
-                    <option key={u} value={u}>
-                      {AREA_UNIT_LABEL[u]}
-                    </option>
-                  ))}
-                </select>
-              </div>
+              <ValueWithUnit id="ft-section" invalid={!!errors.minSectionArea} input={num("minSectionArea")} unitLabel="Area unit" unit={register("areaUnit")} units={AREA_UNITS} labels={AREA_UNIT_LABEL} />
             </Field>
             <div className="flex flex-col justify-end gap-2 text-sm">
               <label className="flex items-center gap-2">
@@ -488,5 +443,37 @@ export function FlowTestForm({ mode, id, initial }: { mode: "create" | "edit"; i
         {Object.keys(errors).length > 0 && <p className="text-sm text-bad">Some fields need attention; see the messages above.</p>}
       </div>
     </form>
+  );
+}
+
+/** A number with its unit beside it (depression, temperature, pressure…). */
+function ValueWithUnit<U extends string>({
+  id,
+  invalid,
+  input,
+  unitLabel,
+  unit,
+  units,
+  labels,
+}: {
+  id: string;
+  invalid: boolean;
+  input: React.InputHTMLAttributes<HTMLInputElement> & { ref?: React.Ref<HTMLInputElement> };
+  unitLabel: string;
+  unit: React.SelectHTMLAttributes<HTMLSelectElement> & { ref?: React.Ref<HTMLSelectElement> };
+  units: readonly U[];
+  labels: Record<U, string>;
+}) {
+  return (
+    <div className="flex gap-1">
+      <input id={id} inputMode="decimal" className={`${inputClass(invalid)} w-full`} {...input} />
+      <select aria-label={unitLabel} className={inputClass()} {...unit}>
+        {units.map((u) => (
+          <option key={u} value={u}>
+            {labels[u]}
+          </option>
+        ))}
+      </select>
+    </div>
   );
 }
