@@ -5,6 +5,7 @@
  * with postMessage cost about 0.5 ms a chunk on the reading thread, sharing costs nothing.
  * The pool is small and fixed, so memory stays flat whatever the file size.
  */
+import { createHash, type Hash } from "node:crypto";
 import { Worker } from "node:worker_threads";
 
 // Plain CommonJS so the worker needs no TypeScript loader (and none is started in it).
@@ -29,7 +30,6 @@ type Waiter<T> = { resolve: (value: T) => void; reject: (err: Error) => void };
 type Message = { type: "free"; slot: number } | { type: "digest"; hex: string };
 
 export class ParallelHasher {
-  private readonly worker: Worker;
   /** One view per slot of the shared pool; a slot is named by its index in this list. */
   private readonly slots: Uint8Array[] = [];
   private readonly free: number[] = [];
@@ -37,15 +37,45 @@ export class ParallelHasher {
   private waitingForDigest: Waiter<string> | null = null;
   private failure: Error | null = null;
 
+  private worker: Worker | null = null;
+  private readonly workerData: { shared: SharedArrayBuffer; bufferBytes: number; poolSize: number };
+  /** Set instead of a thread when none could start. */
+  private inline: Hash | null = null;
+  /** Chunks submitted before the thread was started, in order. */
+  private readonly queued: Array<{ slot: number; length: number }> = [];
+
+  /**
+   * The thread itself starts on start(): its start-up (20-30 ms of the other core) is best
+   * kept clear of the first moments of an analysis, when the JIT compiles the hot code there.
+   */
   constructor(bufferBytes: number, poolSize: number) {
     const shared = new SharedArrayBuffer(bufferBytes * poolSize);
     for (let i = 0; i < poolSize; i++) {
       this.slots.push(new Uint8Array(shared, i * bufferBytes, bufferBytes));
       this.free.push(poolSize - 1 - i); // slot 0 is handed out first
     }
-    // execArgv: [] keeps the parent's loaders (tsx under the CLI) out of this plain-JS worker
-    this.worker = new Worker(WORKER_SOURCE, { eval: true, execArgv: [], workerData: { shared, bufferBytes, poolSize } });
-    this.worker.on("message", (m: Message) => {
+    this.workerData = { shared, bufferBytes, poolSize };
+  }
+
+  get started(): boolean {
+    return this.worker !== null;
+  }
+
+  /** Starts the thread; chunks submitted so far are hashed first. */
+  start(): void {
+    if (this.worker || this.inline) return;
+    let worker: Worker;
+    try {
+      // execArgv: [] keeps the parent's loaders (tsx under the CLI) out of this plain-JS worker
+      worker = new Worker(WORKER_SOURCE, { eval: true, execArgv: [], workerData: this.workerData });
+    } catch {
+      // where threads cannot start, the hash runs on this thread
+      this.inline = createHash("sha256");
+      for (const q of this.queued.splice(0)) this.hashInline(q.slot, q.length);
+      return;
+    }
+    this.worker = worker;
+    worker.on("message", (m: Message) => {
       if (m.type === "free") {
         const waiter = this.waitingForBuffer;
         this.waitingForBuffer = null;
@@ -56,15 +86,17 @@ export class ParallelHasher {
         this.waitingForDigest = null;
       }
     });
-    this.worker.on("error", (err) => this.fail(err));
-    this.worker.on("exit", (code) => {
+    worker.on("error", (err) => this.fail(err));
+    worker.on("exit", (code) => {
       if (code !== 0) this.fail(new Error(`hash worker stopped with code ${code}`));
     });
+    for (const q of this.queued.splice(0)) worker.postMessage({ type: "chunk", ...q });
   }
 
   /** A free buffer from the pool (waits while all are with the worker). */
   acquire(): Promise<Uint8Array> {
     if (this.failure) return Promise.reject(this.failure);
+    if (this.free.length === 0) this.start(); // never wait on a thread that is not running
     const slot = this.free.pop();
     if (slot !== undefined) return Promise.resolve(this.slots[slot]);
     return new Promise((resolve, reject) => {
@@ -82,20 +114,30 @@ export class ParallelHasher {
    * again: the caller must not write to it before then.
    */
   submit(buffer: Uint8Array, length: number): void {
-    this.worker.postMessage({ type: "chunk", slot: this.slotOf(buffer), length });
+    const chunk = { slot: this.slotOf(buffer), length };
+    if (this.worker) this.worker.postMessage({ type: "chunk", ...chunk });
+    else if (this.inline) this.hashInline(chunk.slot, chunk.length);
+    else this.queued.push(chunk);
+  }
+
+  private hashInline(slot: number, length: number): void {
+    this.inline!.update(this.slots[slot].subarray(0, length));
+    this.free.push(slot);
   }
 
   digest(): Promise<string> {
     if (this.failure) return Promise.reject(this.failure);
+    this.start();
+    if (this.inline) return Promise.resolve(this.inline.digest("hex"));
     return new Promise((resolve, reject) => {
       this.waitingForDigest = { resolve, reject };
-      this.worker.postMessage({ type: "end" });
+      this.worker!.postMessage({ type: "end" });
     });
   }
 
   async close(): Promise<void> {
     this.failure ??= new Error("hash worker closed");
-    await this.worker.terminate();
+    await this.worker?.terminate();
   }
 
   private slotOf(buffer: Uint8Array): number {

@@ -1,12 +1,13 @@
 /**
  * Bad input: a clear error or warning, never a crash, a hang or unbounded memory.
  */
+import { createHash } from "node:crypto";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, it } from "vitest";
 import { analyzeToolpath, analyzeToolpathFile, analyzeToolpathText, ToolpathInputError } from "@/lib/toolpath/analyze";
-import { mulberry32 } from "@/lib/toolpath/generate";
+import { generatePortProgram, mulberry32 } from "@/lib/toolpath/generate";
 import { MAX_LINE_BYTES } from "@/lib/toolpath/scanner";
 import { START, analyzeLines, warningCodes } from "./helpers";
 
@@ -151,6 +152,17 @@ describe("files on disk", () => {
     const fromFile = await analyzeToolpathFile(path);
     expect(fromFile.report).toEqual(analyzeToolpathText(text).report);
   });
+
+  it("a file big enough to be hashed on a second thread gives the same report as in memory", async () => {
+    // about 20 MB: over the 16 MiB from which the file reader hashes on another thread
+    const text = [...generatePortProgram({ lines: 480_000, tools: 3, seed: 7 })].join("");
+    expect(text.length).toBeGreaterThan(16 * 1024 * 1024);
+    const path = join(dir, "big.nc");
+    writeFileSync(path, text);
+    const fromFile = await analyzeToolpathFile(path);
+    expect(fromFile.report.sha256).toBe(createHash("sha256").update(text).digest("hex"));
+    expect(fromFile.report).toEqual(analyzeToolpathText(text).report);
+  }, 30_000);
 });
 
 describe("a complete program without a final line end", () => {

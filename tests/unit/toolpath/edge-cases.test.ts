@@ -62,6 +62,15 @@ describe("3. signs, bare decimal points, no exponents, near-integers", () => {
     expect(r.bounds.X!.max).toBe(0.3);
   });
 
+  it("long numbers read exactly: 9 digits, 10 and more, and blanks inside a long one", () => {
+    // Parsed as Number() parses the same decimal text (ECMA-262 StringToNumber, correctly rounded).
+    const r = analyzeLines(program("G0 X123456.789 Y-1234567.8901 Z0.000000000012 A1 2345 6789.01"));
+    expect(r.bounds.X!.max).toBe(Number("123456.789"));
+    expect(r.bounds.Y!.min).toBe(Number("-1234567.8901"));
+    expect(r.bounds.Z!.max).toBe(Number("0.000000000012"));
+    expect(r.bounds.A!.max).toBe(Number("123456789.01"));
+  });
+
   it("an exponent is not a number format in v3: `X1e3` is X1 and an unsupported E word, reported", () => {
     const r = analyzeLines(program("G0 X1e3"));
     expect(r.bounds.X!.max).toBe(1);

@@ -23,6 +23,43 @@ describe("ParallelHasher", () => {
     }
   });
 
+  it("chunks handed over before the thread starts are hashed first, in order", async () => {
+    const hasher = new ParallelHasher(8, 3);
+    try {
+      const first = await hasher.acquire();
+      first.set([1, 2, 3, 4]);
+      hasher.submit(first, 4);
+      const second = await hasher.acquire();
+      second.set([5, 6]);
+      hasher.submit(second, 2);
+      expect(hasher.started).toBe(false);
+      hasher.start();
+      expect(hasher.started).toBe(true);
+      const third = await hasher.acquire();
+      third.set([7]);
+      hasher.submit(third, 1);
+      expect(await hasher.digest()).toBe(createHash("sha256").update(Uint8Array.of(1, 2, 3, 4, 5, 6, 7)).digest("hex"));
+    } finally {
+      await hasher.close();
+    }
+  });
+
+  it("starts its thread rather than wait for a buffer only the thread can free", async () => {
+    const hasher = new ParallelHasher(8, 1);
+    try {
+      const only = await hasher.acquire();
+      only.set([9, 9]);
+      hasher.submit(only, 2);
+      const again = await hasher.acquire(); // the pool is empty: this starts the thread
+      expect(hasher.started).toBe(true);
+      again.set([8]);
+      hasher.submit(again, 1);
+      expect(await hasher.digest()).toBe(createHash("sha256").update(Uint8Array.of(9, 9, 8)).digest("hex"));
+    } finally {
+      await hasher.close();
+    }
+  });
+
   it("an empty input hashes to the digest of nothing", async () => {
     const hasher = new ParallelHasher(16, 1);
     try {
