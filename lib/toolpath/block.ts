@@ -36,15 +36,27 @@ export const PLAIN_MOTION_WORDS = AXIS_WORDS | bit(L_F);
 export const MAX_G_PER_BLOCK = 16;
 export const MAX_M_PER_BLOCK = 8;
 
+export type WordStorage = { values: Float64Array; gCodes: Int32Array; mCodes: Int32Array };
+
 export class BlockWords {
-  readonly values = new Float64Array(26);
+  readonly values: Float64Array;
   /** Bit per letter (1 << index) for the non-G, non-M words present. */
   present = 0;
   /** G codes times ten (G1 → 10, G59.3 → 593), in text order. */
-  readonly gCodes = new Int32Array(MAX_G_PER_BLOCK);
+  readonly gCodes: Int32Array;
   gCount = 0;
-  readonly mCodes = new Int32Array(MAX_M_PER_BLOCK);
+  readonly mCodes: Int32Array;
   mCount = 0;
+
+  /** `storage`: arrays to read and write the words in (the scanner's WebAssembly memory), else new ones. */
+  constructor(storage?: WordStorage) {
+    this.values = storage?.values ?? new Float64Array(26);
+    this.gCodes = storage?.gCodes ?? new Int32Array(MAX_G_PER_BLOCK);
+    this.mCodes = storage?.mCodes ?? new Int32Array(MAX_M_PER_BLOCK);
+    if (this.values.length !== 26 || this.gCodes.length !== MAX_G_PER_BLOCK || this.mCodes.length !== MAX_M_PER_BLOCK) {
+      throw new Error("BlockWords: storage of the wrong size");
+    }
+  }
 
   reset(): void {
     this.present = 0;

@@ -10,6 +10,7 @@
  * `*nn` printer-host checksums verified and stripped; CR, LF and CRLF line ends.
  */
 import { AXIS_WORDS, BlockWords, L_G, L_M, MAX_G_PER_BLOCK, MAX_M_PER_BLOCK } from "./block";
+import { COUNT_G, COUNT_HAS_WORDS, COUNT_M, COUNT_PRESENT, fastPath, type FastPath } from "./fast-path";
 import type { WarningLog } from "./warnings";
 
 export interface BlockSink {
@@ -21,6 +22,8 @@ export interface BlockSink {
 export const MAX_LINE_BYTES = 64 * 1024;
 /** RS274/NGC v3 limit on a line's length (edge case 14); longer lines are read but flagged. */
 const STANDARD_LINE_LIMIT = 256;
+/** Chunks are scanned at most this many bytes at a time (what the fast path's memory takes). */
+const SLICE_BYTES = 1 << 20;
 /** Look at (at least) this many non-blank lines before deciding whether the input is G-code at all. */
 const EARLY_VERDICT_LINES = 1000;
 
@@ -69,7 +72,9 @@ const enum Tape {
 
 export class BlockScanner {
   readonly stats: ScanStats = { lines: 0, nonBlankLines: 0, blocks: 0, badLines: 0, blockDeleteLines: 0, sawCode: false };
-  private readonly words = new BlockWords();
+  private readonly words: BlockWords;
+  /** The WebAssembly fast path for plain lines, or null: every line is then read in scanLine. */
+  private readonly fast: FastPath | null;
   private readonly carry = new Uint8Array(MAX_LINE_BYTES + 1);
   private carryLen = 0;
   /** The current line outgrew the carry buffer: skip to its end. */
@@ -81,14 +86,25 @@ export class BlockScanner {
   private reportedAfterEnd = false;
   private earlyVerdictDone = false;
 
+  /** `useFastPath: false` reads every line in TypeScript (the tests compare both ways). */
   constructor(
     private readonly sink: BlockSink,
     private readonly log: WarningLog,
     private readonly blockDelete: boolean,
-  ) {}
+    useFastPath = true,
+  ) {
+    this.fast = useFastPath ? fastPath() : null;
+    this.words = new BlockWords(this.fast ?? undefined);
+  }
 
   /** Feeds the next chunk of bytes. */
   push(chunk: Uint8Array): void {
+    for (let at = 0; at < chunk.length; at += SLICE_BYTES) {
+      this.pushSlice(at === 0 && chunk.length <= SLICE_BYTES ? chunk : chunk.subarray(at, at + SLICE_BYTES));
+    }
+  }
+
+  private pushSlice(chunk: Uint8Array): void {
     let start = 0;
     const n = chunk.length;
     if (this.carryLen > 0 || this.overflowing) {
@@ -181,6 +197,13 @@ export class BlockScanner {
 
   /** Reads the complete lines in buf[from, to); `to` is just past a line end. */
   private scanRegion(buf: Uint8Array, from: number, to: number): void {
+    const fast = this.fast;
+    if (fast) {
+      // into the fast path's memory (about 0.1 ms a MiB), where both readers see it
+      fast.bytes.set(buf.subarray(from, to), fast.input);
+      this.scanFast(fast, fast.input, fast.input + to - from);
+      return;
+    }
     let i = from;
     if (this.skipLeadingLF) {
       this.skipLeadingLF = false;
@@ -192,6 +215,52 @@ export class BlockScanner {
       if (buf[end] === 13) {
         if (next < to) {
           if (buf[next] === 10) next++;
+        } else {
+          this.skipLeadingLF = true;
+        }
+      }
+      i = next;
+    }
+  }
+
+  /**
+   * scanRegion over the fast path's memory: plain lines are read by the WebAssembly fast path,
+   * every other line (and every line while the tape is undecided or the program has ended,
+   * where scanLine keeps the books) by scanLine.
+   */
+  private scanFast(fast: FastPath, from: number, to: number): void {
+    const bytes = fast.bytes;
+    const counts = fast.counts;
+    const fastLine = fast.fastLine;
+    const stats = this.stats;
+    const w = this.words;
+    let i = from;
+    if (this.skipLeadingLF) {
+      this.skipLeadingLF = false;
+      if (i < to && bytes[i] === 10) i++;
+    }
+    while (i < to) {
+      let end = -1;
+      if ((this.tape === Tape.Absent || this.tape === Tape.Open) && !this.sink.programEnded) end = fastLine(i);
+      if (end >= 0 && end - i <= STANDARD_LINE_LIMIT) {
+        const line = ++stats.lines;
+        if (counts[COUNT_HAS_WORDS] !== 0) {
+          stats.nonBlankLines++;
+          const present = counts[COUNT_PRESENT];
+          w.present = present;
+          w.gCount = counts[COUNT_G];
+          w.mCount = counts[COUNT_M];
+          stats.blocks++;
+          if (!stats.sawCode && ((present & AXIS_WORDS) !== 0 || w.gCount > 0 || w.mCount > 0)) stats.sawCode = true;
+          this.sink.executeBlock(w, line);
+        }
+      } else {
+        end = this.scanLine(bytes, i);
+      }
+      let next = end + 1;
+      if (bytes[end] === 13) {
+        if (next < to) {
+          if (bytes[next] === 10) next++;
         } else {
           this.skipLeadingLF = true;
         }
