@@ -11,12 +11,14 @@ const VALUES = 0;
 const PRESENT = 208;
 const G_COUNT = 212;
 const M_COUNT = 216;
-const HAS_WORDS = 220;
 const G_CODES = 256;
 const M_CODES = 320;
 
 export type FastPath = {
-  /** Reads the line at `at` (an index into `bytes`); its line end's index, or −1 to read it in TypeScript. */
+  /**
+   * Reads the line at `at` (an index into `bytes`): −1 to read it in TypeScript, else its line
+   * end's index × 4 + FAST_HAS_WORDS + FAST_HAS_CODES as they apply.
+   */
   fastLine: (at: number) => number;
   /** The whole linear memory. */
   bytes: Uint8Array;
@@ -27,7 +29,7 @@ export type FastPath = {
   values: Float64Array;
   gCodes: Int32Array;
   mCodes: Int32Array;
-  /** [present, gCount, mCount, hasWords] of the last line read. */
+  /** [present, gCount, mCount] of the last line read. */
   counts: Int32Array;
 };
 
@@ -56,7 +58,7 @@ export function fastPath(): FastPath | null {
       values: new Float64Array(buffer, VALUES, 26),
       gCodes: new Int32Array(buffer, G_CODES, (M_CODES - G_CODES) / 4),
       mCodes: new Int32Array(buffer, M_CODES, 8),
-      counts: new Int32Array(buffer, PRESENT, (HAS_WORDS - PRESENT) / 4 + 1),
+      counts: new Int32Array(buffer, PRESENT, 3),
     };
   } catch {
     instance = null;
@@ -64,10 +66,11 @@ export function fastPath(): FastPath | null {
   return instance;
 }
 
+export const FAST_HAS_WORDS = 1;
+export const FAST_HAS_CODES = 2;
 export const COUNT_PRESENT = 0;
 export const COUNT_G = (G_COUNT - PRESENT) / 4;
 export const COUNT_M = (M_COUNT - PRESENT) / 4;
-export const COUNT_HAS_WORDS = (HAS_WORDS - PRESENT) / 4;
 
 function abortFromWasm(): never {
   throw new Error("the scanner's WebAssembly fast path aborted");

@@ -10,7 +10,7 @@
  * `*nn` printer-host checksums verified and stripped; CR, LF and CRLF line ends.
  */
 import { AXIS_WORDS, BlockWords, L_G, L_M, MAX_G_PER_BLOCK, MAX_M_PER_BLOCK } from "./block";
-import { COUNT_G, COUNT_HAS_WORDS, COUNT_M, COUNT_PRESENT, fastPath, type FastPath } from "./fast-path";
+import { COUNT_G, COUNT_M, COUNT_PRESENT, FAST_HAS_CODES, FAST_HAS_WORDS, fastPath, type FastPath } from "./fast-path";
 import type { WarningLog } from "./warnings";
 
 export interface BlockSink {
@@ -240,16 +240,22 @@ export class BlockScanner {
       if (i < to && bytes[i] === 10) i++;
     }
     while (i < to) {
-      let end = -1;
-      if ((this.tape === Tape.Absent || this.tape === Tape.Open) && !this.sink.programEnded) end = fastLine(i);
-      if (end >= 0 && end - i <= STANDARD_LINE_LIMIT) {
+      let read = -1;
+      if ((this.tape === Tape.Absent || this.tape === Tape.Open) && !this.sink.programEnded) read = fastLine(i);
+      let end = read >> 2;
+      if (read >= 0 && end - i <= STANDARD_LINE_LIMIT) {
         const line = ++stats.lines;
-        if (counts[COUNT_HAS_WORDS] !== 0) {
+        if ((read & FAST_HAS_WORDS) !== 0) {
           stats.nonBlankLines++;
           const present = counts[COUNT_PRESENT];
           w.present = present;
-          w.gCount = counts[COUNT_G];
-          w.mCount = counts[COUNT_M];
+          if ((read & FAST_HAS_CODES) !== 0) {
+            w.gCount = counts[COUNT_G];
+            w.mCount = counts[COUNT_M];
+          } else {
+            w.gCount = 0;
+            w.mCount = 0;
+          }
           stats.blocks++;
           if (!stats.sawCode && ((present & AXIS_WORDS) !== 0 || w.gCount > 0 || w.mCount > 0)) stats.sawCode = true;
           this.sink.executeBlock(w, line);
