@@ -204,22 +204,10 @@ export class BlockScanner {
       this.scanFast(fast, fast.input, fast.input + to - from);
       return;
     }
-    let i = from;
-    if (this.skipLeadingLF) {
-      this.skipLeadingLF = false;
-      if (i < to && buf[i] === 10) i++;
-    }
+    let i = this.regionStart(buf, from, to);
     while (i < to) {
       const end = this.scanLine(buf, i);
-      let next = end + 1;
-      if (buf[end] === 13) {
-        if (next < to) {
-          if (buf[next] === 10) next++;
-        } else {
-          this.skipLeadingLF = true;
-        }
-      }
-      i = next;
+      i = this.lineAfter(buf, end, to);
     }
   }
 
@@ -234,11 +222,7 @@ export class BlockScanner {
     const fastLine = fast.fastLine;
     const stats = this.stats;
     const w = this.words;
-    let i = from;
-    if (this.skipLeadingLF) {
-      this.skipLeadingLF = false;
-      if (i < to && bytes[i] === 10) i++;
-    }
+    let i = this.regionStart(bytes, from, to);
     while (i < to) {
       let read = -1;
       if ((this.tape === Tape.Absent || this.tape === Tape.Open) && !this.sink.programEnded) read = fastLine(i);
@@ -263,16 +247,26 @@ export class BlockScanner {
       } else {
         end = this.scanLine(bytes, i);
       }
-      let next = end + 1;
-      if (bytes[end] === 13) {
-        if (next < to) {
-          if (bytes[next] === 10) next++;
-        } else {
-          this.skipLeadingLF = true;
-        }
-      }
-      i = next;
+      i = this.lineAfter(bytes, end, to);
     }
+  }
+
+  /** Where a region's first line starts: past the LF of a CRLF split from its CR by a chunk end. */
+  private regionStart(buf: Uint8Array, from: number, to: number): number {
+    if (!this.skipLeadingLF) return from;
+    this.skipLeadingLF = false;
+    return from < to && buf[from] === 10 ? from + 1 : from;
+  }
+
+  /** The start of the line after the one whose line end (CR, LF or CRLF) is at `end`. */
+  private lineAfter(buf: Uint8Array, end: number, to: number): number {
+    const next = end + 1;
+    if (buf[end] !== 13) return next;
+    if (next === to) {
+      this.skipLeadingLF = true; // the LF, if any, starts the next region
+      return next;
+    }
+    return buf[next] === 10 ? next + 1 : next;
   }
 
   /**
