@@ -7,8 +7,8 @@
 import { Bar, BarChart, CartesianGrid, Cell, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { formatNumber } from "../ui/format";
 import { extremes, profileDifference, type AreaPoint } from "./chart-data";
+import { AXIS_TEXT, GRID_STROKE, TOOLTIP_STYLE } from "./chart-style";
 
-const AXIS = { fontSize: 11, fill: "#57524b" };
 
 const signed = (v: number, digits: number) => `${v > 0 ? "+" : v < 0 ? "−" : "±"}${formatNumber(Math.abs(v), digits)}`;
 
@@ -30,13 +30,13 @@ export function AreaDifferenceChart({ a, b, labelA, labelB, stepMm = 2, height =
       <div style={{ height }} className="w-full">
         <ResponsiveContainer width="100%" height="100%">
           <BarChart data={points} margin={{ top: 8, right: 18, bottom: 22, left: 6 }}>
-            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
-            <XAxis dataKey="stationMm" tick={AXIS} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "station, mm", position: "insideBottom", offset: -12, ...AXIS }} />
-            <YAxis width={56} tick={AXIS} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "B − A, mm²", angle: -90, position: "insideLeft", offset: 4, ...AXIS }} />
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="2 2" />
+            <XAxis dataKey="stationMm" tick={AXIS_TEXT} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "station, mm", position: "insideBottom", offset: -12, ...AXIS_TEXT }} />
+            <YAxis width={56} tick={AXIS_TEXT} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "B − A, mm²", angle: -90, position: "insideLeft", offset: 4, ...AXIS_TEXT }} />
             <Tooltip
               formatter={(value) => [`${signed(Number(value), 1)} mm²`, `${labelB} − ${labelA}`]}
               labelFormatter={(label) => `station ${formatNumber(Number(label), 1)} mm`}
-              contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }}
+              contentStyle={TOOLTIP_STYLE}
             />
             <ReferenceLine y={0} stroke="#33312e" />
             <Bar dataKey="diff" isAnimationActive={false}>

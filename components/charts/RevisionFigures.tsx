@@ -10,8 +10,8 @@ import type { Delta, RevisionComparison } from "@/lib/programs/compare";
 import { formatDuration, formatSigned } from "../programs/format";
 import { Badge, type Tone } from "../ui/Badge";
 import { formatNumber } from "../ui/format";
+import { AXIS_TEXT, GRID_STROKE, TOOLTIP_STYLE } from "./chart-style";
 
-const AXIS = { fontSize: 11, fill: "#57524b" };
 const A_FILL = "#33312e";
 const B_FILL = "url(#revision-b-hatch)";
 
@@ -30,10 +30,10 @@ function PairedBars({ title, unit, rows, labelA, labelB, digits }: { title: stri
                 <line x1="0" y1="0" x2="0" y2="6" stroke="#b0592d" strokeWidth="3" />
               </pattern>
             </defs>
-            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" vertical={false} />
-            <XAxis dataKey="name" tick={AXIS} />
-            <YAxis width={48} tick={AXIS} />
-            <Tooltip formatter={(v) => (typeof v === "number" ? `${formatNumber(v, digits)} ${unit}` : "—")} contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }} />
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="2 2" vertical={false} />
+            <XAxis dataKey="name" tick={AXIS_TEXT} />
+            <YAxis width={48} tick={AXIS_TEXT} />
+            <Tooltip formatter={(v) => (typeof v === "number" ? `${formatNumber(v, digits)} ${unit}` : "—")} contentStyle={TOOLTIP_STYLE} />
             <Legend wrapperStyle={{ fontSize: 12 }} />
             <Bar dataKey="a" name={labelA} fill={A_FILL} isAnimationActive={false} />
             <Bar dataKey="b" name={labelB} fill={B_FILL} stroke="#b0592d" isAnimationActive={false} />

@@ -7,12 +7,12 @@
  * The numbers behind it are in a table below (text alternative, and what people copy from).
  */
 import { CartesianGrid, Line, LineChart, ReferenceDot, ReferenceLine, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
-import { SeriesSwatch } from "../flow/SeriesMarker";
+import { SeriesLegend } from "../flow/SeriesLegend";
 import { styleFor } from "../flow/palette";
 import { formatNumber } from "../ui/format";
 import { mergeOnStations, valveReferenceAreas, type AreaSeries } from "./chart-data";
+import { AXIS_TEXT, GRID_STROKE, TOOLTIP_STYLE } from "./chart-style";
 
-const AXIS = { fontSize: 11, fill: "#57524b" };
 
 export function SectionAreaChart({
   series,
@@ -40,30 +40,30 @@ export function SectionAreaChart({
       <figcaption className="text-sm font-semibold text-ink">
         {title} <span className="font-normal text-ink-soft">— mm² against distance from the port entry along the centerline, mm</span>
       </figcaption>
-      <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Series">
-        {drawn.map((s, i) => (
-          <li key={i} className="flex items-center gap-1.5">
-            <SeriesSwatch style={styleFor(i)} />
+      <SeriesLegend
+        labels={drawn.map((s) => (
+          <>
             {s.label}
             {s.min && (
               <span>
                 (smallest {formatNumber(s.min.areaMm2, 0)} mm² at {formatNumber(s.min.stationMm, 1)} mm)
               </span>
             )}
-          </li>
+          </>
         ))}
+      >
         {refs.length > 0 && <li>Grey lines: {refs.map((r) => r.label).join(", ")}{refs.some((r) => r.kind === "guideline") ? " (throat guideline, common practice)" : ""}</li>}
-      </ul>
+      </SeriesLegend>
       <div style={{ height }} className="w-full">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart data={rows} margin={{ top: 10, right: 18, bottom: 22, left: 6 }}>
-            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
-            <XAxis type="number" dataKey="stationMm" domain={["dataMin", "dataMax"]} tick={AXIS} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "station, mm", position: "insideBottom", offset: -12, ...AXIS }} />
-            <YAxis type="number" width={56} tick={AXIS} tickFormatter={(v: number) => v.toFixed(0)} domain={["auto", "auto"]} label={{ value: "area, mm²", angle: -90, position: "insideLeft", offset: 4, ...AXIS }} />
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="2 2" />
+            <XAxis type="number" dataKey="stationMm" domain={["dataMin", "dataMax"]} tick={AXIS_TEXT} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "station, mm", position: "insideBottom", offset: -12, ...AXIS_TEXT }} />
+            <YAxis type="number" width={56} tick={AXIS_TEXT} tickFormatter={(v: number) => v.toFixed(0)} domain={["auto", "auto"]} label={{ value: "area, mm²", angle: -90, position: "insideLeft", offset: 4, ...AXIS_TEXT }} />
             <Tooltip
               formatter={(value, name) => [typeof value === "number" ? `${formatNumber(value, 0)} mm²` : "—", drawn[Number(String(name).slice(1))]?.label ?? String(name)]}
               labelFormatter={(label) => `station ${formatNumber(Number(label), 1)} mm`}
-              contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }}
+              contentStyle={TOOLTIP_STYLE}
             />
             {refs.map((r) => (
               <ReferenceLine key={r.label} y={r.areaMm2} stroke="#8a8379" strokeDasharray={r.kind === "valve" ? undefined : "5 4"} ifOverflow="extendDomain" label={{ value: r.label, position: "insideTopRight", fontSize: 10, fill: "#57524b" }} />

@@ -6,7 +6,9 @@ import { CartesianGrid, Line, LineChart, ReferenceLine, ResponsiveContainer, Too
 import { niceTicks } from "@/lib/flowtests/axis";
 import { fixed } from "@/lib/flowtests/words";
 import { styleFor } from "./palette";
-import { SeriesMarker, SeriesSwatch } from "./SeriesMarker";
+import { SeriesMarker } from "./SeriesMarker";
+import { AXIS_TEXT, GRID_STROKE, TOOLTIP_STYLE } from "../charts/chart-style";
+import { SeriesLegend } from "./SeriesLegend";
 
 export type CdChartSeries = { label: string; points: Array<{ ld: number; cdValve: number; cdCurtain: number }> };
 
@@ -43,36 +45,29 @@ export function CdChart({ series, height = 260 }: { series: CdChartSeries[]; hei
         </div>
       </div>
       {drawn.length > 1 && (
-        <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Series">
-          {drawn.map((s, i) => (
-            <li key={`${s.label}-${i}`} className="flex items-center gap-1.5">
-              <SeriesSwatch style={styleFor(i)} />
-              {s.label}
-            </li>
-          ))}
-        </ul>
+        <SeriesLegend labels={drawn.map((s) => s.label)} />
       )}
       <div style={{ height }} className="w-full print:h-56">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart margin={{ top: 20, right: 16, bottom: 22, left: 4 }}>
-            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="2 2" />
             <XAxis
               type="number"
               dataKey="ld"
               domain={[0, xTicks[xTicks.length - 1]]}
               ticks={xTicks}
-              tick={{ fontSize: 11, fill: "#57524b" }}
+              tick={AXIS_TEXT}
               tickFormatter={(v: number) => fixed(v, 2)}
-              label={{ value: "L/D (lift over valve diameter)", position: "insideBottom", offset: -12, fontSize: 11, fill: "#57524b" }}
+              label={{ value: "L/D (lift over valve diameter)", position: "insideBottom", offset: -12, ...AXIS_TEXT }}
               allowDuplicatedCategory={false}
             />
-            <YAxis type="number" dataKey={basis} domain={[0, yTicks[yTicks.length - 1]]} ticks={yTicks} width={44} tick={{ fontSize: 11, fill: "#57524b" }} tickFormatter={(v: number) => fixed(v, 2)} />
+            <YAxis type="number" dataKey={basis} domain={[0, yTicks[yTicks.length - 1]]} ticks={yTicks} width={44} tick={AXIS_TEXT} tickFormatter={(v: number) => fixed(v, 2)} />
             {/* At L/D 0.25 the curtain area equals the valve-head area. */}
             <ReferenceLine x={0.25} stroke="#8a8379" strokeDasharray="3 3" label={{ value: "L/D 0.25", fontSize: 10, fill: "#8a8379", position: "top" }} />
             <Tooltip
               formatter={(value) => [fixed(Number(value), 3)]}
               labelFormatter={(label) => `L/D ${fixed(Number(label), 3)}`}
-              contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }}
+              contentStyle={TOOLTIP_STYLE}
             />
             {drawn.map((s, i) => {
               const style = styleFor(i);

@@ -9,7 +9,9 @@ import { CartesianGrid, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YA
 import { niceTicks } from "@/lib/flowtests/axis";
 import { fixed } from "@/lib/flowtests/words";
 import { styleFor } from "./palette";
-import { SeriesMarker, SeriesSwatch } from "./SeriesMarker";
+import { SeriesMarker } from "./SeriesMarker";
+import { AXIS_TEXT, GRID_STROKE, TOOLTIP_STYLE } from "../charts/chart-style";
+import { SeriesLegend } from "./SeriesLegend";
 
 export type FlowChartSeries = { label: string; points: Array<{ liftMm: number; flowCfmAt28: number }> };
 
@@ -35,25 +37,18 @@ export function FlowChart({
       <figcaption className="text-sm font-semibold text-ink">
         {title} <span className="font-normal text-ink-soft">— cfm at 28 inH₂O, standard air, against valve lift in mm</span>
       </figcaption>
-      <ul className="flex flex-wrap gap-x-4 gap-y-1 text-xs text-ink-soft" aria-label="Series">
-        {drawn.map((s, i) => (
-          <li key={`${s.label}-${i}`} className="flex items-center gap-1.5">
-            <SeriesSwatch style={styleFor(i)} />
-            {s.label}
-          </li>
-        ))}
-      </ul>
+      <SeriesLegend labels={drawn.map((s) => s.label)} />
       <div style={{ height }} className="w-full print:h-64">
         <ResponsiveContainer width="100%" height="100%">
           <LineChart margin={{ top: 8, right: 16, bottom: 22, left: 4 }}>
-            <CartesianGrid stroke="#ddd5c7" strokeDasharray="2 2" />
+            <CartesianGrid stroke={GRID_STROKE} strokeDasharray="2 2" />
             <XAxis
               type="number"
               dataKey="liftMm"
               domain={[0, xTicks[xTicks.length - 1]]}
               ticks={xTicks}
-              tick={{ fontSize: 11, fill: "#57524b" }}
-              label={{ value: "lift, mm", position: "insideBottom", offset: -12, fontSize: 11, fill: "#57524b" }}
+              tick={AXIS_TEXT}
+              label={{ value: "lift, mm", position: "insideBottom", offset: -12, ...AXIS_TEXT }}
               allowDuplicatedCategory={false}
             />
             <YAxis
@@ -62,13 +57,13 @@ export function FlowChart({
               domain={[0, yTicks[yTicks.length - 1]]}
               ticks={yTicks}
               width={48}
-              tick={{ fontSize: 11, fill: "#57524b" }}
-              label={{ value: "cfm @ 28″", angle: -90, position: "insideLeft", offset: 8, fontSize: 11, fill: "#57524b" }}
+              tick={AXIS_TEXT}
+              label={{ value: "cfm @ 28″", angle: -90, position: "insideLeft", offset: 8, ...AXIS_TEXT }}
             />
             <Tooltip
               formatter={(value) => [`${fixed(Number(value), 1)} cfm`]}
               labelFormatter={(label) => `lift ${fixed(Number(label), 2)} mm`}
-              contentStyle={{ fontSize: 12, borderColor: "#ddd5c7", background: "#fffdf9" }}
+              contentStyle={TOOLTIP_STYLE}
             />
             {drawn.map((s, i) => {
               const style = styleFor(i);

@@ -2,6 +2,7 @@
 
 /** Section area along the port (station from the entry), one line per scan or revision. */
 import { CartesianGrid, Legend, Line, LineChart, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
+import { GRID_STROKE } from "../charts/chart-style";
 
 const COLOURS = ["#b0592d", "#33312e", "#2f6b3f", "#8a5a00"];
 
@@ -17,7 +18,7 @@ export function SectionProfileChart({ series }: { series: Array<{ name: string; 
     <figure className="h-64 w-full" aria-label="Section area along the port">
       <ResponsiveContainer width="100%" height="100%">
         <LineChart data={data} margin={{ top: 8, right: 16, bottom: 20, left: 8 }}>
-          <CartesianGrid stroke="#ddd5c7" strokeDasharray="3 3" />
+          <CartesianGrid stroke={GRID_STROKE} strokeDasharray="3 3" />
           <XAxis dataKey="stationMm" type="number" domain={["dataMin", "dataMax"]} tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "Station along the port (mm)", position: "insideBottom", offset: -8, fontSize: 12 }} />
           <YAxis tickFormatter={(v: number) => v.toFixed(0)} label={{ value: "Area mm²", angle: -90, position: "insideLeft", fontSize: 12 }} />
           <Tooltip formatter={(v) => (typeof v === "number" ? `${v.toFixed(0)} mm²` : String(v))} labelFormatter={(l) => `Station ${Number(l).toFixed(1)} mm`} />
