@@ -4,11 +4,25 @@ import { EmptyState } from "../ui/Card";
 import { formatDateTime } from "../ui/format";
 import { AnalysisView } from "./AnalysisView";
 import { formatBytes } from "./format";
+import { RemoveFileButton } from "./RemoveFileButton";
 
 const ROLE_WORD: Record<string, string> = { toolpath: "Toolpath", setup_sheet: "Setup sheet", point_cloud: "Point cloud" };
 
-/** A record's files: name, size, SHA-256, verified download, and each one's analysis. */
-export function FileList({ files, canRerun, emptyTitle }: { files: Array<FileView & { role?: string }>; canRerun: boolean; emptyTitle: string }) {
+/**
+ * A record's files: name, size, SHA-256, verified download, and each one's analysis.
+ * `removableFrom`: the draft revision whose files the viewer may take off.
+ */
+export function FileList({
+  files,
+  canRerun,
+  emptyTitle,
+  removableFrom,
+}: {
+  files: Array<FileView & { role?: string }>;
+  canRerun: boolean;
+  emptyTitle: string;
+  removableFrom?: number;
+}) {
   if (files.length === 0) return <EmptyState title={emptyTitle} />;
   return (
     <ul className="flex flex-col gap-4" data-testid="file-list">
@@ -26,6 +40,11 @@ export function FileList({ files, canRerun, emptyTitle }: { files: Array<FileVie
             <span className="text-ink-soft">{formatBytes(f.sizeBytes)}</span>
             {f.state === "uploading" && <Badge tone="warn">Upload not finished</Badge>}
             <span className="text-xs text-ink-faint">{formatDateTime(f.createdAt)}</span>
+            {removableFrom !== undefined && (
+              <span className="ml-auto">
+                <RemoveFileButton revisionId={removableFrom} fileId={f.id} name={f.name} />
+              </span>
+            )}
           </div>
           {f.sha256 && (
             <p className="mt-1 break-all font-mono text-xs text-ink-faint" title="SHA-256, checked on every download">

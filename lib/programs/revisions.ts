@@ -124,6 +124,33 @@ export function updateRevision(db: Db, actor: Actor | null, id: number, input: u
   });
 }
 
+/**
+ * Takes a file off a draft revision (a wrong or superseded upload). The stored copy and its
+ * analysis stay for the audit trail; the revision no longer lists, proves or delivers it.
+ */
+export function removeRevisionFile(db: Db, actor: Actor | null, revisionId: number, fileId: number, now = Date.now()) {
+  const who = requireRole(actor, REVISION_EDITORS);
+  return db.transaction((tx) => {
+    const t = tx as unknown as Db;
+    const revision = loadRevision(t, revisionId);
+    if (!isEditable(revision.state)) {
+      throw new AppError("conflict", `Revision ${revision.letter} is ${REVISION_STATE_LABEL[revision.state].toLowerCase()}: its files are fixed.`);
+    }
+    const link = t
+      .select({ id: revisionFiles.id, role: revisionFiles.role, name: storedFiles.originalName, sha256: storedFiles.sha256 })
+      .from(revisionFiles)
+      .innerJoin(storedFiles, eq(storedFiles.id, revisionFiles.fileId))
+      .where(and(eq(revisionFiles.revisionId, revisionId), eq(revisionFiles.fileId, fileId)))
+      .get();
+    if (!link) throw new AppError("not_found", "That file is not part of this revision.");
+    t.delete(revisionFiles).where(eq(revisionFiles.id, link.id)).run();
+    const before = { fileId, role: link.role, name: link.name, sha256: link.sha256 };
+    recordAudit(t, { actor: who, action: "revision.file_remove", entity: "revision", entityId: revisionId, before, after: null }, now);
+    t.update(revisions).set({ updatedAt: now }).where(eq(revisions.id, revisionId)).run();
+    return { removed: before };
+  });
+}
+
 /** Toolpath files of a revision that finished uploading, with their analyses' states. */
 export function toolpathFilesOf(db: Db, revisionId: number) {
   return db

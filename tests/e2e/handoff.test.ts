@@ -25,6 +25,7 @@ let revisionPath = "";
 const cloudFile = path.join(work, "e2e intake scan.ply");
 const programFile = path.join(work, "e2e intake A.nc");
 const photoFile = path.join(work, "bowl cyl 1.png");
+const wrongFile = path.join(work, "wrong head.nc");
 
 /** A real 16×16 PNG (copper square), built by hand: signature, IHDR, IDAT, IEND (PNG spec). */
 function pngBytes(): Buffer {
@@ -53,6 +54,7 @@ beforeAll(async () => {
   for (const chunk of generatePortProgram({ lines: 480_000, tools: 3, seed: 9, port: "intake" })) fs.writeSync(out, chunk);
   fs.closeSync(out);
   fs.writeFileSync(photoFile, pngBytes());
+  fs.writeFileSync(wrongFile, [...generatePortProgram({ lines: 300, tools: 1, seed: 2, port: "intake" })].join(""));
 });
 afterAll(async () => {
   await browser?.close();
@@ -153,6 +155,14 @@ describe("from the porter's bench to a released program", () => {
     await page.waitForURL(/\/revisions\/\d+$/);
     revisionPath = new URL(page.url()).pathname;
     const uploader = page.getByTestId("uploader-toolpath");
+    // A wrong file first: uploaded, then taken off the draft again (the stored copy stays).
+    await uploader.locator('input[type="file"]').setInputFiles(wrongFile);
+    await uploader.getByRole("button", { name: "Upload", exact: true }).click();
+    await expect.poll(() => uploader.getByTestId("upload-status").textContent(), { timeout: 60_000 }).toMatch(/Stored “wrong head.nc”/);
+    await expect.poll(() => page.getByTestId("file-name").allTextContents()).toContain("wrong head.nc");
+    page.once("dialog", (dialog) => void dialog.accept());
+    await page.getByRole("button", { name: "Remove wrong head.nc from this revision" }).click();
+    await expect.poll(() => page.getByTestId("file-name").allTextContents()).not.toContain("wrong head.nc");
     await uploader.locator('input[type="file"]').setInputFiles(programFile);
     const seen = await watchProgress(page, '[data-testid="uploader-toolpath"]');
     await uploader.getByRole("button", { name: "Upload", exact: true }).click();

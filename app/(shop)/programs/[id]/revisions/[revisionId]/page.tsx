@@ -30,6 +30,7 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
   const sheets = files.filter((f) => f.role === "setup_sheet");
   const editable = isEditable(r.state);
   const canUpload = editable && hasRole(actor, MACHINISTS);
+  const canRemove = editable && hasRole(actor, REVISION_EDITORS);
   const analysed = toolpaths.find((f) => f.analysis?.state === "done");
   return (
     <>
@@ -81,15 +82,16 @@ export default async function RevisionPage({ params }: { params: Promise<{ id: s
         </Caution>
         <Card title="Toolpaths and analysis">
           <div className="flex flex-col gap-4">
-            <FileList files={toolpaths} canRerun={hasRole(actor, MACHINISTS)} emptyTitle="No toolpath uploaded yet." />
+            <FileList files={toolpaths} canRerun={hasRole(actor, MACHINISTS)} emptyTitle="No toolpath uploaded yet." removableFrom={canRemove ? r.id : undefined} />
             {canUpload && <UploadThenRefresh kind="toolpath" target={{ revisionId: r.id }} label="Upload a toolpath (G-code)" />}
             {!editable && <p className="text-xs text-ink-faint">The files of a revision are fixed once it leaves draft.</p>}
+            {toolpaths.length > 1 && <p className="text-xs text-ink-soft">Cuts and machine delivery use the first toolpath uploaded; remove the others from the draft if they are not meant to be run.</p>}
           </div>
         </Card>
         <ViewerSlot kind="toolpath" analysisId={analysed?.analysis?.id ?? null} href={`/view/revisions/${r.id}`} />
         <Card title="Setup sheet">
           <div className="flex flex-col gap-3">
-            <FileList files={sheets} canRerun={false} emptyTitle="No setup sheet." />
+            <FileList files={sheets} canRerun={false} emptyTitle="No setup sheet." removableFrom={canRemove ? r.id : undefined} />
             {canUpload && <SetupSheetUploader revisionId={r.id} />}
           </div>
         </Card>
