@@ -90,7 +90,7 @@ export class ToolpathAnalyzer {
       preview: this.decimator,
       log: this.log,
     });
-    this.scanner = new BlockScanner(this.interpreter, this.log, options.blockDelete ?? false);
+    this.scanner = new BlockScanner(this.interpreter, this.log, options.blockDelete ?? false, options.engine !== "typescript");
   }
 
   get bytesRead(): number {

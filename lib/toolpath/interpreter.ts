@@ -18,6 +18,7 @@ import {
   gName,
 } from "./block";
 import type { PreviewDecimator } from "./decimate";
+import { BATCH_LAST_MOVE_LINE, BATCH_LINE, BATCH_MOVES, BATCH_QUEUED, type PlainBatchMemory } from "./fast-path";
 import { BlockPlan } from "./block-plan";
 import type { LimitChecker } from "./limits";
 import { PREVIEW_BREAK, PREVIEW_MAX_TOOL_INDEX, PREVIEW_RAPID, PREVIEW_TOOL_SHIFT } from "./preview";
@@ -153,6 +154,7 @@ export class Interpreter implements BlockSink {
   private readonly move = new Float64Array(2);
   private readonly plan = new BlockPlan();
   private readonly arcPoint = new Float64Array(3);
+  private readonly batchPoint = new Float64Array(3);
 
   constructor(setup: InterpreterSetup) {
     const machine = setup.machine ?? ASSUMED_MACHINE;
@@ -221,6 +223,78 @@ export class Interpreter implements BlockSink {
       }
     }
     this.fullBlock(w, line);
+  }
+
+  // ------------------------------------------------------------------ plain batches
+
+  /**
+   * Before the scanner runs a stretch of plain motion lines in WebAssembly
+   * (assembly/plain-moves.ts): whether this state allows it (G0 or G1, units set, the preview at
+   * the position, some axis known and used), and if so the state copied in. `line`: lines read.
+   */
+  beginPlainBatch(m: PlainBatchMemory, line: number): boolean {
+    const motion = this.motion;
+    if ((motion !== 0 && motion !== 10) || !this.unitsSet || !this.previewAtPosition) return false;
+    const axesOk = this.known & this.usedAxes;
+    if (axesOk === 0) return false;
+    const tool = this.tools.active;
+    m.pos.set(this.pos);
+    m.sums.set(this.sums);
+    m.min.set(this.min);
+    m.max.set(this.max);
+    m.minLine.set(this.minLine);
+    m.maxLine.set(this.maxLine);
+    if (tool) m.toolStats.set(tool.stats);
+    m.rapidRate.set(this.rapidRate);
+    m.alarmLo.set(this.alarmLo);
+    m.alarmHi.set(this.alarmHi);
+    const f = m.modeF;
+    f[0] = this.feed;
+    f[1] = this.inch ? MM_PER_INCH : 1;
+    f[2] = this.maxFeedCheck ? this.maxFeed : Infinity;
+    f[3] = this.spindleRpm;
+    const i = m.modeI;
+    i[0] = motion === 0 ? 1 : 0;
+    i[1] = this.incremental ? 1 : 0;
+    i[2] = axesOk;
+    i[3] = (this.known & XYZ_MASK) === XYZ_MASK ? 1 : 0;
+    i[4] = this.toolBits;
+    i[5] = this.inch ? 1 : 0;
+    i[6] = tool && this.spindleOn && !this.inverseTime ? 1 : 0;
+    i[7] = this.spindleOn ? 1 : 0;
+    m.batch[BATCH_LINE] = line;
+    return true;
+  }
+
+  /** After the batch: its state copied back, its tool line range, its preview points in order. */
+  endPlainBatch(m: PlainBatchMemory): void {
+    const b = m.batch;
+    const moves = b[BATCH_MOVES];
+    if (moves === 0) return;
+    this.pos.set(m.pos);
+    this.sums.set(m.sums);
+    this.min.set(m.min);
+    this.max.set(m.max);
+    this.minLine.set(m.minLine);
+    this.maxLine.set(m.maxLine);
+    this.feed = m.modeF[0];
+    this.motionBlocks += moves;
+    const tool = this.tools.active;
+    if (tool) {
+      tool.stats.set(m.toolStats);
+      this.tools.touch(b[BATCH_LAST_MOVE_LINE]);
+    }
+    const queued = b[BATCH_QUEUED];
+    const qf = m.queueF;
+    const qi = m.queueI;
+    const preview = this.preview;
+    const p = this.batchPoint;
+    for (let k = 0; k < queued; k++) {
+      p[0] = qf[4 * k];
+      p[1] = qf[4 * k + 1];
+      p[2] = qf[4 * k + 2];
+      preview.add(p, qi[8 * k + 6], qi[8 * k + 7]);
+    }
   }
 
   // ------------------------------------------------------------------ full block

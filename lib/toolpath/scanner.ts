@@ -10,18 +10,40 @@
  * `*nn` printer-host checksums verified and stripped; CR, LF and CRLF line ends.
  */
 import { AXIS_WORDS, BlockWords, L_G, L_M, MAX_G_PER_BLOCK, MAX_M_PER_BLOCK } from "./block";
-import { COUNT_G, COUNT_M, COUNT_PRESENT, FAST_HAS_CODES, FAST_HAS_WORDS, fastPath, type FastPath } from "./fast-path";
+import {
+  BATCH_ENDED_ON_CR,
+  BATCH_LINE,
+  BATCH_MOVES,
+  BATCH_NON_BLANK,
+  COUNT_G,
+  COUNT_M,
+  COUNT_PRESENT,
+  FAST_HAS_CODES,
+  FAST_HAS_WORDS,
+  fastPath,
+  type FastPath,
+  type PlainBatchMemory,
+} from "./fast-path";
 import type { WarningLog } from "./warnings";
 
 export interface BlockSink {
   executeBlock(words: BlockWords, line: number): void;
   readonly programEnded: boolean;
+  /** Optional: runs stretches of plain motion lines in WebAssembly (see Interpreter). */
+  beginPlainBatch?(memory: PlainBatchMemory, line: number): boolean;
+  endPlainBatch?(memory: PlainBatchMemory): void;
 }
 
 /** A line longer than this is refused outright (it cannot be G-code a controller would take). */
 export const MAX_LINE_BYTES = 64 * 1024;
 /** RS274/NGC v3 limit on a line's length (edge case 14); longer lines are read but flagged. */
 const STANDARD_LINE_LIMIT = 256;
+/**
+ * A batch of plain lines that ran fewer lines than this was not worth its set-up (copying the
+ * interpreter's state in and out), so as many lines are read one at a time before the next try.
+ * (Whether the interpreter's state allows a batch at all is a few cheap checks, made every line.)
+ */
+const BATCH_WORTHWHILE_LINES = 8;
 /** Chunks are scanned at most this many bytes at a time (what the fast path's memory takes). */
 const SLICE_BYTES = 1 << 20;
 /** Look at (at least) this many non-blank lines before deciding whether the input is G-code at all. */
@@ -85,6 +107,7 @@ export class BlockScanner {
   private tapeOpenLine = 0;
   private reportedAfterEnd = false;
   private earlyVerdictDone = false;
+  private batchBackoff = 0;
 
   /** `useFastPath: false` reads every line in TypeScript (the tests compare both ways). */
   constructor(
@@ -222,8 +245,31 @@ export class BlockScanner {
     const fastLine = fast.fastLine;
     const stats = this.stats;
     const w = this.words;
+    const sink = this.sink;
+    const batching = sink.beginPlainBatch !== undefined && sink.endPlainBatch !== undefined;
+    const plain = fast.plain;
     let i = this.regionStart(bytes, from, to);
     while (i < to) {
+      if (this.batchBackoff > 0) {
+        this.batchBackoff--;
+      } else if (batching && (this.tape === Tape.Absent || this.tape === Tape.Open) && !sink.programEnded) {
+        if (sink.beginPlainBatch!(plain, stats.lines)) {
+          const stop = fast.runPlain(i, to);
+          const b = plain.batch;
+          const lines = b[BATCH_LINE] - stats.lines;
+          if (lines > 0) {
+            stats.lines = b[BATCH_LINE];
+            stats.nonBlankLines += b[BATCH_NON_BLANK];
+            stats.blocks += b[BATCH_MOVES];
+            if (b[BATCH_MOVES] > 0) stats.sawCode = true;
+            sink.endPlainBatch!(plain);
+            if (b[BATCH_ENDED_ON_CR] !== 0) this.skipLeadingLF = true;
+          }
+          if (lines < BATCH_WORTHWHILE_LINES) this.batchBackoff = BATCH_WORTHWHILE_LINES;
+          i = stop;
+          if (i >= to) break;
+        }
+      }
       let read = -1;
       if ((this.tape === Tape.Absent || this.tape === Tape.Open) && !this.sink.programEnded) read = fastLine(i);
       let end = read >> 2;

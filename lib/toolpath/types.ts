@@ -61,6 +61,12 @@ export type AnalyzeOptions = {
   onProgress?: (bytesRead: number) => void;
   /** Stops the analysis between chunks. */
   signal?: AbortSignal;
+  /**
+   * "wasm" (default): plain lines are read, and runs of plain moves measured, in WebAssembly;
+   * "typescript": every line in TypeScript. Same results either way (tests compare them); the
+   * switch is for those tests and for diagnosis.
+   */
+  engine?: "wasm" | "typescript";
 };
 
 export type ToolpathWarning = { line: number; code: WarningCode; message: string };

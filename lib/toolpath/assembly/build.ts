@@ -19,7 +19,7 @@ export async function compileFastLine(): Promise<Uint8Array> {
   let binary: Uint8Array | null = null;
   const { error, stderr } = await asc.main(
     [
-      path.join(here, "fast-line.ts"),
+      path.join(here, "index.ts"),
       "-O3",
       "--noAssert",
       "--runtime", "stub",

@@ -1,6 +1,7 @@
 /**
- * AssemblyScript (compiled to WebAssembly by `npm run build:wasm`): the scanner's fast path for
- * the plain lines that make up nearly all of a program, `G1 X… Y… Z… A… B… F…`.
+ * AssemblyScript (compiled to WebAssembly by `npm run build:wasm`, with plain-moves.ts): the
+ * scanner's fast path for the plain lines that make up nearly all of a program,
+ * `G1 X… Y… Z… A… B… F…`.
  *
  * It reads one line from linear memory and writes its words to fixed addresses that the
  * scanner's BlockWords views directly, so nothing is copied back. Anything it does not handle
@@ -10,16 +11,18 @@
  * does apply are the scanner's (scanner.ts), and a test checks both agree on every line kind.
  */
 
-// Output block (addresses shared with fast-line-module.ts).
-const VALUES: usize = 0; // 26 f64, one per letter
-const PRESENT: usize = 208; // i32: bit per letter
-const G_COUNT: usize = 212;
-const M_COUNT: usize = 216;
-const G_CODES: usize = 256; // 16 i32 (G code × 10)
-const M_CODES: usize = 320; // 8 i32
+import { INPUT_AT } from "./layout";
+
+// Output block: the words of the last line read (fast-path.ts views them).
+export const VALUES: usize = 0; // 26 f64, one per letter
+export const PRESENT: usize = 208; // i32: bit per letter
+export const G_COUNT: usize = 212;
+export const M_COUNT: usize = 216;
+export const G_CODES: usize = 256; // 16 i32 (G code × 10)
+export const M_CODES: usize = 320; // 8 i32
 const POW10: usize = 384; // 10 f64: 10^0 … 10^9
 /** The text to scan is copied here. */
-export const INPUT: usize = 1024;
+export const INPUT: usize = INPUT_AT;
 
 const L_G: i32 = 6;
 const L_M: i32 = 12;
@@ -50,7 +53,11 @@ export function init(): void {
  * plus 1 if the line has words and 2 if it has G or M codes (so a plain line needs no more reads).
  */
 export function fastLine(at: i32): i32 {
-  let i = <usize>at;
+  return readLine(<usize>at);
+}
+
+@inline export function readLine(at: usize): i32 {
+  let i = at;
   let present: i32 = 0;
   let gCount: i32 = 0;
   let mCount: i32 = 0;
