@@ -4,6 +4,7 @@
  * form offers. The computed columns are not here: they come from the flow math (lib/flowtests).
  */
 import { and, asc, count, desc, eq, inArray, like, ne, or, sql, type SQL } from "drizzle-orm";
+import type { SQLiteSelect } from "drizzle-orm/sqlite-core";
 import type { Db } from "../client";
 import { cuts, flowPoints, flowTests, headTypes, heads, masterHeads, programs, revisions, users } from "../schema";
 import { pageOf, type Page, type TableQuery } from "@/lib/paging";
@@ -125,35 +126,28 @@ function filterWhere(query: TableQuery & FlowTestFilters): SQL | undefined {
   );
 }
 
-export function listFlowTests(db: Db, query: TableQuery & FlowTestFilters): Page<FlowTestListRow> {
-  const where = filterWhere(query);
-  const order = orderFor(query, SORTABLE, "testedOn");
-  const rows = db
-    .select(listColumns)
-    .from(flowTests)
+/** The tables the list shows and filters on, joined the same way for its rows and its count. */
+function withListJoins<Q extends SQLiteSelect>(query: Q) {
+  return query
     .leftJoin(headTypes, eq(headTypes.id, flowTests.headTypeId))
     .leftJoin(masterHeads, eq(masterHeads.id, flowTests.masterId))
     .leftJoin(revisions, eq(revisions.id, flowTests.revisionId))
     .leftJoin(programs, eq(programs.id, revisions.programId))
     .leftJoin(heads, eq(heads.id, flowTests.headId))
-    .leftJoin(users, eq(users.id, flowTests.operatorId))
+    .leftJoin(users, eq(users.id, flowTests.operatorId));
+}
+
+export function listFlowTests(db: Db, query: TableQuery & FlowTestFilters): Page<FlowTestListRow> {
+  const where = filterWhere(query);
+  const order = orderFor(query, SORTABLE, "testedOn");
+  const rows = withListJoins(db.select(listColumns).from(flowTests).$dynamic())
     .where(where)
     // Ties (same day) show the latest recorded first, whatever the direction.
     .orderBy(...order, desc(flowTests.id))
     .limit(query.pageSize)
     .offset(offsetFor(query))
     .all();
-  const total = db
-    .select({ n: count() })
-    .from(flowTests)
-    .leftJoin(headTypes, eq(headTypes.id, flowTests.headTypeId))
-    .leftJoin(masterHeads, eq(masterHeads.id, flowTests.masterId))
-    .leftJoin(revisions, eq(revisions.id, flowTests.revisionId))
-    .leftJoin(programs, eq(programs.id, revisions.programId))
-    .leftJoin(heads, eq(heads.id, flowTests.headId))
-    .leftJoin(users, eq(users.id, flowTests.operatorId))
-    .where(where)
-    .get()!.n;
+  const total = withListJoins(db.select({ n: count() }).from(flowTests).$dynamic()).where(where).get()!.n;
   return pageOf(rows as FlowTestListRow[], total, query);
 }
 
