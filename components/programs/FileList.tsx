@@ -4,7 +4,7 @@ import { EmptyState } from "../ui/Card";
 import { formatDateTime } from "../ui/format";
 import { AnalysisView } from "./AnalysisView";
 import { formatBytes } from "./format";
-import { RemoveFileButton } from "./RemoveFileButton";
+import { RemoveButton } from "../uploads/RemoveButton";
 
 const ROLE_WORD: Record<string, string> = { toolpath: "Toolpath", setup_sheet: "Setup sheet", point_cloud: "Point cloud" };
 
@@ -42,7 +42,7 @@ export function FileList({
             <span className="text-xs text-ink-faint">{formatDateTime(f.createdAt)}</span>
             {removableFrom !== undefined && (
               <span className="ml-auto">
-                <RemoveFileButton revisionId={removableFrom} fileId={f.id} name={f.name} />
+                <RemoveButton url={`/api/revisions/${removableFrom}/files/${f.id}`} name={f.name} from="revision" />
               </span>
             )}
           </div>

@@ -107,6 +107,13 @@ describe("from the porter's bench to a released program", () => {
     const img = page.getByTestId("gallery").locator("img").first();
     await img.scrollIntoViewIfNeeded();
     await expect.poll(() => img.evaluate((i) => (i as HTMLImageElement).naturalWidth), { timeout: 10_000 }).toBe(16);
+    // The same photo sent twice by mistake: the second one is taken off again.
+    await page.getByTestId("photo-uploader").locator('input[type="file"]').setInputFiles(photoFile);
+    await page.getByTestId("photo-uploader").getByRole("button", { name: "Upload", exact: true }).click();
+    await expect.poll(() => page.getByTestId("gallery").locator("img").count(), { timeout: 30_000 }).toBe(2);
+    page.once("dialog", (dialog) => void dialog.accept());
+    await page.getByTestId("gallery").getByRole("button", { name: "Remove bowl cyl 1.png from this master" }).last().click();
+    await expect.poll(() => page.getByTestId("gallery").locator("img").count(), { timeout: 10_000 }).toBe(1);
     await snap(page, "handoff-porter-master");
     await page.goto("/handoff");
     await page.getByTestId(`card-master-${label}`).waitFor();
@@ -209,6 +216,7 @@ describe("from the porter's bench to a released program", () => {
     await page.goto(masterPath);
     expect(await page.getByRole("link", { name: "Edit notes and readings" }).count()).toBe(0);
     expect(await page.getByTestId("photo-uploader").count()).toBe(0);
+    expect(await page.getByTestId("gallery").getByRole("button", { name: /^Remove/ }).count()).toBe(0);
     for (const p of ["/masters/new", "/scans/new", "/programs/new", "/plates/new", "/machines/new", "/head-types/new"]) {
       await page.goto(p);
       await expect.poll(() => page.getByTestId("forbidden-title").textContent(), { message: p }).toBe("Not open to your role");

@@ -97,7 +97,7 @@ export default async function MasterPage({ params }: { params: Promise<{ id: str
         </Card>
         <Card title="Photos">
           <div className="flex flex-col gap-4">
-            <Gallery photos={photos} />
+            <Gallery photos={photos} removableFrom={hasRole(actor, PHOTO_ROLES.master_head) ? "master" : undefined} />
             {hasRole(actor, PHOTO_ROLES.master_head) && <PhotoUploader entity="master_head" entityId={master.id} />}
           </div>
         </Card>

@@ -51,7 +51,7 @@ export default async function PlatePage({ params }: { params: Promise<{ id: stri
         {plate.notes && <Card title="Notes"><p className="whitespace-pre-wrap text-sm">{plate.notes}</p></Card>}
         <Card title="Photos">
           <div className="flex flex-col gap-4">
-            <Gallery photos={photos} />
+            <Gallery photos={photos} removableFrom={hasRole(actor, PHOTO_ROLES.fixture_plate) ? "plate" : undefined} />
             {hasRole(actor, PHOTO_ROLES.fixture_plate) && <PhotoUploader entity="fixture_plate" entityId={plate.id} />}
           </div>
         </Card>

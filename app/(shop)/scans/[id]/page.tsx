@@ -59,7 +59,7 @@ export default async function ScanPage({ params }: { params: Promise<{ id: strin
         <ViewerSlot kind="cloud" analysisId={latest?.analysis?.id ?? null} href={`/view/scans/${scan.id}`} />
         <Card title="Photos">
           <div className="flex flex-col gap-4">
-            <Gallery photos={photos} />
+            <Gallery photos={photos} removableFrom={hasRole(actor, PHOTO_ROLES.scan) ? "scan" : undefined} />
             {hasRole(actor, PHOTO_ROLES.scan) && <PhotoUploader entity="scan" entityId={scan.id} />}
           </div>
         </Card>
