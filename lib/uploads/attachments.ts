@@ -4,11 +4,11 @@
  */
 import { eq } from "drizzle-orm";
 import type { Db } from "@/db/client";
-import { attachments, revisions, storedFiles } from "@/db/schema";
+import { attachments, storedFiles } from "@/db/schema";
 import { recordAudit } from "../audit/record";
 import { requireRole, type Actor } from "../auth/guard";
 import { AppError } from "../errors";
-import { ATTACHABLE, PHOTO_ROLES, type AttachableEntity } from "./service";
+import { ATTACHABLE, PHOTO_ROLES, refuseUnlessDraft, type AttachableEntity } from "./service";
 
 export function removeAttachment(db: Db, actor: Actor | null, attachmentId: number, now = Date.now()) {
   return db.transaction((tx) => {
@@ -22,10 +22,7 @@ export function removeAttachment(db: Db, actor: Actor | null, attachmentId: numb
     if (!row || !(ATTACHABLE as readonly string[]).includes(row.entity)) throw new AppError("not_found", "That photo was not found.");
     const entity = row.entity as AttachableEntity;
     const who = requireRole(actor, PHOTO_ROLES[entity]);
-    if (entity === "revision") {
-      const rev = t.select({ state: revisions.state, letter: revisions.letter }).from(revisions).where(eq(revisions.id, row.entityId)).get();
-      if (rev && rev.state !== "draft") throw new AppError("conflict", `Revision ${rev.letter} is no longer a draft: its files are fixed.`);
-    }
+    if (entity === "revision") refuseUnlessDraft(t, row.entityId);
     t.delete(attachments).where(eq(attachments.id, attachmentId)).run();
     const before = { entity, entityId: row.entityId, fileId: row.fileId, caption: row.caption, name: row.name, sha256: row.sha256 };
     recordAudit(t, { actor: who, action: "attachment.remove", entity, entityId: row.entityId, before, after: null }, now);

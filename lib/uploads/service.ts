@@ -56,10 +56,15 @@ export function authorizePhoto(db: Db, actor: Actor | null, input: unknown) {
 export function authorizeSheet(db: Db, actor: Actor | null, input: unknown) {
   const v = parseInput(sheetInputSchema, input);
   const who = requireRole(actor, MACHINISTS);
-  const rev = db.select({ state: revisions.state, letter: revisions.letter }).from(revisions).where(eq(revisions.id, v.revisionId)).get();
-  if (!rev) throw new AppError("not_found", "That revision was not found.");
-  if (rev.state !== "draft") throw new AppError("conflict", `Revision ${rev.letter} is no longer a draft: its files are fixed.`);
+  if (!refuseUnlessDraft(db, v.revisionId)) throw new AppError("not_found", "That revision was not found.");
   return { who, input: v };
+}
+
+/** A revision's files and photos change only while it is a draft: 409 otherwise. Returns whether it exists. */
+export function refuseUnlessDraft(db: Db, revisionId: number): boolean {
+  const rev = db.select({ state: revisions.state, letter: revisions.letter }).from(revisions).where(eq(revisions.id, revisionId)).get();
+  if (rev && rev.state !== "draft") throw new AppError("conflict", `Revision ${rev.letter} is no longer a draft: its files are fixed.`);
+  return rev !== undefined;
 }
 
 export type ServiceFile = { name: string; size: number; url: string };
